@@ -1,0 +1,35 @@
+/**
+ * The one failure type of the core.
+ *
+ * Edge-case policy (applied everywhere): a single quantity the mathematics leaves undefined, such
+ * as a lag with no available pairs, is `NaN`; a condition that makes the whole request meaningless
+ * (bad argument, text in the data, zero variance, too few values) throws an `EcholotError`.
+ *
+ * - `invalid`: the user must change something (the spreadsheet shows #VALUE!, the CLI exits 2);
+ * - `short`: there is not enough data for the computation (#N/A in the spreadsheet).
+ */
+export type EcholotErrorKind = "invalid" | "short";
+
+export class EcholotError extends Error {
+  readonly kind: EcholotErrorKind;
+
+  constructor(kind: EcholotErrorKind, message: string) {
+    super(message);
+    this.name = "EcholotError";
+    this.kind = kind;
+  }
+}
+
+/** Throws an `invalid` EcholotError with the message: the user has to fix the input. */
+export function invalid(message: string): never {
+  throw new EcholotError("invalid", message);
+}
+
+/** Throws a `short` EcholotError with the message: there are too few values. */
+export function tooShort(message: string): never {
+  throw new EcholotError("short", message);
+}
+
+export function isEcholotError(error: unknown): error is EcholotError {
+  return error instanceof EcholotError;
+}

@@ -1,0 +1,37 @@
+/**
+ * False-alarm accounting for K lags each tested at level α.
+ *
+ * Under white noise the sample autocorrelations are asymptotically independent and normal
+ * (Box, Jenkins & Reinsel, §2.1.6), so the number of lags crossing a level-α band is about
+ * Binomial(K, α): expected K·α crossings, and the chance of m or more is
+ * Σ_{j≥m} C(K,j) α^j (1−α)^{K−j}, computed directly as an upper tail (distributions.ts).
+ * This is approximate: the independence holds only asymptotically.
+ */
+import { binomialUpperTail } from "./distributions";
+
+export interface FalseAlarmNote {
+  /** Lags tested (those with a defined r_k). */
+  readonly tested: number;
+  /** Crossings expected by chance, K·α. */
+  readonly expected: number;
+  /** Lags that crossed the band. */
+  readonly beyond: number;
+  /** The lags that crossed, ascending. */
+  readonly beyondLags: readonly number[];
+  /** Chance that pure noise gives at least `beyond` crossings. */
+  readonly chance: number;
+}
+
+export function falseAlarmNote(
+  tested: number,
+  alpha: number,
+  beyondLags: readonly number[],
+): FalseAlarmNote {
+  return {
+    tested,
+    expected: tested * alpha,
+    beyond: beyondLags.length,
+    beyondLags,
+    chance: binomialUpperTail(beyondLags.length, tested, alpha),
+  };
+}

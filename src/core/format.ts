@@ -1,0 +1,40 @@
+/**
+ * Number formatting for sentences people read (the verdict reason). Figures in tables and JSON
+ * keep full precision; only prose is rounded.
+ */
+import { isPValueBound } from "./distributions";
+
+/** A p-value for prose: "0.42", "0.0054", "3.2e-7", or "< 1e-300" at the floor. */
+export function formatP(p: number): string {
+  if (Number.isNaN(p)) return "undefined";
+  if (isPValueBound(p)) return "< 1e-300";
+  if (p >= 0.001) return String(Number(p.toPrecision(2)));
+  return p.toExponential(1);
+}
+
+/** A statistic for prose, to `digits` significant figures, without trailing zeros. */
+export function formatNumber(x: number, digits = 3): string {
+  if (!Number.isFinite(x)) return String(x);
+  if (x === 0) return "0";
+  const magnitude = Math.abs(x);
+  if (magnitude >= 1e6 || magnitude < 1e-4) return x.toExponential(digits - 1);
+  return String(Number(x.toPrecision(digits)));
+}
+
+/** A probability as a percentage for prose: "34%", "5%", "0.3%", "less than 0.1%". */
+export function formatPercent(p: number): string {
+  const percent = p * 100;
+  if (percent >= 99.5 && percent < 100) return "more than 99%";
+  if (percent >= 10) return `${Math.round(percent)}%`;
+  if (percent >= 1) return `${Number(percent.toPrecision(2))}%`;
+  if (percent >= 0.1) return `${Number(percent.toPrecision(1))}%`;
+  return "less than 0.1%";
+}
+
+/** "lag 7", "lags 7, 19", "lags 1, 2, 3 and 9 more". */
+export function formatLagList(lags: readonly number[], most = 8): string {
+  if (lags.length === 1) return `lag ${lags[0]}`;
+  const shown = lags.slice(0, most).join(", ");
+  const rest = lags.length - most;
+  return `lags ${shown}${rest > 0 ? ` and ${rest} more` : ""}`;
+}

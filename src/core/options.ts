@@ -1,0 +1,127 @@
+/**
+ * Options of the lag analysis, their keywords and their validation. One place decides what is
+ * allowed and what the message says, for the cell functions, the pane and the CLI alike. Checks
+ * use negated comparisons (`!(x >= 1)`) so that NaN is refused too.
+ */
+import { defaultMaxLag } from "./defaultLags";
+import { invalid, tooShort } from "./errors";
+import { BAND_KINDS, TEST_KINDS, type BandKind, type Series, type TestKind } from "./types";
+
+/** Options as a caller gives them; `null` or absent means "use the default". */
+export interface LagOptions {
+  readonly maxLag?: number | null;
+  readonly alpha?: number | null;
+  readonly season?: number | null;
+  readonly fittedParams?: number | null;
+  readonly bandKind?: BandKind | null;
+  readonly testKind?: TestKind | null;
+}
+
+export interface ResolvedLagOptions {
+  readonly maxLag: number;
+  readonly alpha: number;
+  readonly season: number | null;
+  readonly fittedParams: number;
+  readonly bandKind: BandKind;
+  readonly testKind: TestKind;
+}
+
+export const DEFAULT_ALPHA = 0.05;
+
+function isWhole(x: number): boolean {
+  return Number.isInteger(x);
+}
+
+function values(n: number): string {
+  return `${n} value${n === 1 ? "" : "s"}`;
+}
+
+/** Validates `alpha`: a number strictly between 0 and 1. */
+export function resolveAlpha(alpha: number | null | undefined): number {
+  if (alpha === null || alpha === undefined) return DEFAULT_ALPHA;
+  if (!(alpha > 0 && alpha < 1)) {
+    invalid(`alpha must be a number between 0 and 1, such as 0.05 (got ${alpha})`);
+  }
+  return alpha;
+}
+
+/** Validates a whole-number lag count from 1 to n − 1, named `name` in the message. */
+export function resolveLagCount(name: string, value: number, n: number): number {
+  if (!(isWhole(value) && value >= 1 && value <= n - 1)) {
+    invalid(`${name} must be a whole number from 1 to ${n - 1} (the series has ${values(n)})`);
+  }
+  return value;
+}
+
+/** Validates the season length m: a whole number from 2 to n − 1. */
+export function resolveSeason(season: number | null | undefined, n: number): number | null {
+  if (season === null || season === undefined) return null;
+  if (!(isWhole(season) && season >= 2 && season <= n - 1)) {
+    invalid(
+      `season must be a whole number from 2 to ${Math.max(2, n - 1)}, the number of periods in one cycle, such as 12 for monthly data (got ${season})`,
+    );
+  }
+  return season;
+}
+
+/** Requires at least `needed` values present. */
+export function requireValues(series: Series, needed: number, purpose: string): void {
+  if (series.count < needed) {
+    tooShort(`${purpose} needs at least ${values(needed)}; the series has ${values(series.count)}`);
+  }
+}
+
+export function resolveLagOptions(series: Series, options: LagOptions = {}): ResolvedLagOptions {
+  requireValues(series, 3, "a lag analysis");
+  const n = series.count;
+  const alpha = resolveAlpha(options.alpha);
+  const season = resolveSeason(options.season, n);
+  const maxLag =
+    options.maxLag === null || options.maxLag === undefined
+      ? defaultMaxLag(n, season)
+      : resolveLagCount("maxLag", options.maxLag, n);
+  const fittedParams = options.fittedParams ?? 0;
+  if (!(isWhole(fittedParams) && fittedParams >= 0 && fittedParams < maxLag)) {
+    invalid(
+      `fittedParams must be a whole number from 0 to ${maxLag - 1}: the test's degrees of freedom are ${maxLag} lags − fittedParams and must be at least 1 (got ${fittedParams})`,
+    );
+  }
+  return {
+    maxLag,
+    alpha,
+    season,
+    fittedParams,
+    bandKind: options.bandKind ?? "noise",
+    testKind: options.testKind ?? "ljung-box",
+  };
+}
+
+function parseKeyword<T extends string>(
+  name: string,
+  allowed: readonly T[],
+  text: unknown,
+  fallback: T,
+): T {
+  if (text === null || text === undefined || text === "") return fallback;
+  if (typeof text !== "string") {
+    invalid(`${name} must be one of ${quoteList(allowed)} (got ${String(text)})`);
+  }
+  const found = allowed.find((word) => word === text.trim().toLowerCase());
+  if (found === undefined) invalid(`${name} must be one of ${quoteList(allowed)} (got "${text}")`);
+  return found;
+}
+
+function quoteList(words: readonly string[]): string {
+  const quoted = words.map((w) => `"${w}"`);
+  return `${quoted.slice(0, -1).join(", ")} or ${quoted[quoted.length - 1]}`;
+}
+
+/** Reads a `bandKind` keyword, case-insensitively; blank means "noise". */
+export function parseBandKind(text: unknown): BandKind {
+  return parseKeyword("bandKind", BAND_KINDS, text, "noise");
+}
+
+/** Reads a `testKind` keyword, case-insensitively; blank means "ljung-box". */
+export function parseTestKind(text: unknown): TestKind {
+  return parseKeyword("testKind", TEST_KINDS, text, "ljung-box");
+}

@@ -1,0 +1,31 @@
+/**
+ * Autocorrelation of the squared deviations s_t = (x_t − x̄)², the input of the McLeod–Li test and
+ * of the pane's "squared deviations" view (McLeod & Li 1983, J. Time Ser. Anal. 4:269–273). The
+ * squares keep the series' gaps. O(n·K).
+ */
+import { autocorrelation, type Autocorrelation } from "./autocovariance";
+import { centre } from "./centre";
+import { invalid } from "./errors";
+import type { Series } from "./types";
+
+export function squaredDeviationSeries(series: Series): Series {
+  const { deviations } = centre(series);
+  const values = new Float64Array(deviations.length);
+  for (let t = 0; t < values.length; t++) {
+    const d = deviations[t] as number;
+    values[t] = series.present[t] === 1 ? d * d : NaN;
+  }
+  return { ...series, values };
+}
+
+export function squaredDeviationCorrelation(series: Series, maxLag: number): Autocorrelation {
+  const squares = squaredDeviationSeries(series);
+  try {
+    return autocorrelation(squares, maxLag);
+  } catch (error) {
+    invalid(
+      `the squared deviations of the series${series.label ? ` "${series.label}"` : ""} are constant (every value is equally far from the mean), so their autocorrelation is undefined`,
+    );
+    throw error;
+  }
+}
