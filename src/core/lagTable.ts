@@ -13,6 +13,7 @@ import { sidakAdjust, sidakLevel } from "./multiplicity";
 import { resolveLagOptions, type LagOptions, type ResolvedLagOptions } from "./options";
 import { partialAutocorrelation } from "./partial";
 import { cumulativeJointTest, jointTestAt, type JointTest } from "./portmanteau";
+import { centre } from "./centre";
 import { squaredDeviationCorrelation } from "./squares";
 import type { Series } from "./types";
 import { judge, type Verdict } from "./verdict";
@@ -41,8 +42,12 @@ export interface LagRow {
   readonly jointP: number;
 }
 
+/** What the lag rows describe: the series, or its squared deviations (testKind "squares"). */
+export type LagSubject = "series" | "squares";
+
 export interface LagTable extends ResolvedLagOptions {
   readonly label: string;
+  readonly subject: LagSubject;
   /** Values present. */
   readonly n: number;
   /** Positions from the first to the last value. */
@@ -51,7 +56,7 @@ export interface LagTable extends ResolvedLagOptions {
   readonly mean: number;
   /** c₀/n, the biased variance. */
   readonly variance: number;
-  /** γ̂_k for k = 0..K. */
+  /** γ̂_k for k = 0..K of the subject. */
   readonly autocovariance: Float64Array;
   /** Inner corridor ±z_{1−α/2}. */
   readonly innerLevel: number;
@@ -63,20 +68,25 @@ export interface LagTable extends ResolvedLagOptions {
   readonly verdict: Verdict;
 }
 
+/**
+ * With testKind "squares" the rows describe the squared deviations (the McLeod–Li view of
+ * volatility clustering); mean and variance always describe the series itself.
+ */
 export function lagTable(series: Series, options: LagOptions = {}): LagTable {
   const resolved = resolveLagOptions(series, options);
   const { maxLag: K, alpha, bandKind, testKind, fittedParams, season } = resolved;
-  const ac = autocorrelation(series, K);
+  const subject: LagSubject = testKind === "squares" ? "squares" : "series";
+  const ac =
+    subject === "squares" ? squaredDeviationCorrelation(series, K) : autocorrelation(series, K);
+  const level = subject === "squares" ? centre(series) : ac;
   const partials = partialAutocorrelation(ac.correlation);
   const needsRobust = bandKind === "robust" || testKind === "robust";
   const robust = needsRobust ? robustVariances(ac, K) : undefined;
   const se = standardErrors(bandKind, ac, K, robust);
-  const testCorrelation =
-    testKind === "squares" ? squaredDeviationCorrelation(series, K).correlation : ac.correlation;
   const cumulative = cumulativeJointTest({
     kind: testKind,
     n: ac.n,
-    correlation: testCorrelation,
+    correlation: ac.correlation,
     fittedParams,
     ...(robust === undefined ? {} : { robustVariance: robust }),
   });
@@ -112,15 +122,25 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
   }
   const joint = jointTestAt(testKind, cumulative);
   const falseAlarm = falseAlarmNote(tested, alpha, beyondLags);
-  const verdict = judge({ n: ac.n, maxLag: K, alpha, season, lags: rows, joint, falseAlarm });
+  const verdict = judge({
+    n: ac.n,
+    maxLag: K,
+    alpha,
+    season,
+    lags: rows,
+    joint,
+    falseAlarm,
+    subject,
+  });
   return {
     ...resolved,
     label: series.label,
+    subject,
     n: ac.n,
     length: series.values.length,
     gaps: series.gaps,
-    mean: ac.mean,
-    variance: ac.sumSquares / ac.n,
+    mean: level.mean,
+    variance: level.sumSquares / ac.n,
     autocovariance: ac.autocovariance,
     innerLevel,
     outerLevel,

@@ -36,6 +36,8 @@ export interface VerdictInput {
   readonly lags: readonly VerdictLag[];
   readonly joint: JointTest;
   readonly falseAlarm: FalseAlarmNote;
+  /** "squares" when the lags are those of the squared deviations (volatility clustering). */
+  readonly subject?: "series" | "squares";
 }
 
 export interface Verdict {
@@ -105,10 +107,13 @@ export function judge(input: VerdictInput): Verdict {
   const parts: string[] = [];
   if (triggers.jointRejects || triggers.outerLags.length > 0) {
     if (triggers.jointRejects) {
-      parts.push(`${testName} over ${maxLag} lags rejects white noise (${jointFigures}).`);
+      const hypothesis = input.subject === "squares" ? "constant volatility" : "white noise";
+      parts.push(`${testName} over ${maxLag} lags rejects ${hypothesis} (${jointFigures}).`);
     }
     if (triggers.outerLags.length > 0) {
-      const which = triggers.outerLags.map(describeLag).join(", ");
+      const shown = triggers.outerLags.slice(0, 3).map(describeLag).join(", ");
+      const more = triggers.outerLags.length - 3;
+      const which = more > 0 ? `${shown} and ${more} more lags` : shown;
       const verb = triggers.outerLags.length === 1 ? "lies" : "lie";
       parts.push(
         `${capitalise(which)} ${verb} beyond the corridor that holds for all ${maxLag} lags together.`,

@@ -1,0 +1,42 @@
+/**
+ * Reading the host's arguments. Series arguments arrive as untyped 2-D cell arrays (`any[][]`, so
+ * a blank is never mistaken for 0) and go through the core's intake. Scalar arguments may arrive
+ * as `null` (omitted), as a number, or — through a cell reference — as "" for a blank cell; each
+ * is checked here for its type, and the core then checks its range and writes the message.
+ */
+import { invalid, seriesFromCells, cellErrorCode, type Series } from "../src/core";
+
+/** A series range, one row or one column; a 2-D block or a non-range is refused. */
+export function readSeries(cells: unknown, name = "series"): Series {
+  if (!Array.isArray(cells) || !cells.every((row) => Array.isArray(row))) {
+    invalid(`${name} must be a range of cells: a single row or column such as B2:B241`);
+  }
+  return seriesFromCells(cells as readonly (readonly unknown[])[]);
+}
+
+function describe(value: unknown): string {
+  const code = cellErrorCode(value);
+  if (code !== undefined) return `the error ${code}`;
+  if (typeof value === "string") return `the text "${value.length > 24 ? `${value.slice(0, 24)}…` : value}"`;
+  if (typeof value === "boolean") return value ? "TRUE" : "FALSE";
+  return String(value);
+}
+
+/**
+ * An optional number: omitted, `null` or a blank cell means "use the default" (`null`). Text —
+ * even text that looks like a number — a boolean, an error value or a non-finite number is
+ * refused.
+ */
+export function optionalNumber(name: string, value: unknown): number | null {
+  if (value === null || value === undefined || value === "") return null;
+  if (typeof value === "number" && Number.isFinite(value)) return value;
+  if (typeof value === "string" && value.trim() !== "" && Number.isFinite(Number(value))) {
+    invalid(`${name} must be a number, not text (got ${describe(value)}); type it without quotes`);
+  }
+  return invalid(`${name} must be a number (got ${describe(value)})`);
+}
+
+/** An optional keyword: passed on as it came; the core's keyword readers check it. */
+export function optionalKeyword(value: unknown): unknown {
+  return value ?? null;
+}

@@ -1,0 +1,13 @@
+// Bundles the CLI (and the demo generator) into self-contained CommonJS files under build/, so
+// `npx echolot` works right after `npm ci` (the `prepare` script runs this).
+import { build } from "esbuild";
+
+const common = { bundle: true, platform: "node", target: "node20", format: "cjs", logLevel: "warning" };
+
+await build({
+  ...common,
+  entryPoints: ["src/cli/main.ts"],
+  outfile: "build/echolot.cjs",
+  banner: { js: "#!/usr/bin/env node" },
+});
+await build({ ...common, entryPoints: ["scripts/generate-demo.ts"], outfile: "build/generate-demo.cjs" });

@@ -1,0 +1,29 @@
+/** `echolot demo`: the verdict of every series of every demo scenario. */
+import { join } from "node:path";
+import { formatP, lagTable } from "../core";
+import { BADGES, SCREENING_CAUTION } from "../report";
+import { numericColumns, readCsv } from "./csv";
+import { DEMO_SCENARIOS, demoDirectory } from "./scenarios";
+
+export function runDemo(): string {
+  const lines: string[] = [];
+  for (const scenario of DEMO_SCENARIOS) {
+    const file = join(demoDirectory(), scenario.file);
+    lines.push(scenario.title, `  ${scenario.story}`, `  file: ${file}`, "");
+    const series = numericColumns(readCsv(file));
+    const width = Math.max(...series.map((s) => s.label.length));
+    for (const reading of scenario.readings) {
+      if (scenario.readings.length > 1) lines.push(`  reading: ${reading.name}`);
+      for (const one of series) {
+        const table = lagTable(one, reading.options);
+        const badge = BADGES[table.verdict.word];
+        lines.push(
+          `  ${one.label.padEnd(width)}  ${badge.shape} ${badge.word.padEnd(9)} p = ${formatP(table.joint.p).padEnd(8)} ${table.verdict.reason}`,
+        );
+      }
+      lines.push("");
+    }
+  }
+  lines.push(SCREENING_CAUTION);
+  return lines.join("\n");
+}

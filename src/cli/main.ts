@@ -1,0 +1,59 @@
+/**
+ * The `echolot` command line: CSV in, text or JSON out. Exit 0 on success; exit 2 on bad input or
+ * arguments, with one message on stderr and nothing on stdout; exit 1 on an internal failure.
+ */
+import { isEcholotError } from "../core";
+import { runCheck } from "./check";
+import { runDemo } from "./demo";
+import { UsageError } from "./errors";
+
+const USAGE = `usage:
+  echolot check FILE.csv [--column NAME|N] [--lags K] [--season M] [--fitted P] [--alpha A]
+                         [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
+  echolot demo`;
+
+type Command = (argv: readonly string[]) => string;
+
+const COMMANDS: Readonly<Record<string, Command>> = {
+  check: runCheck,
+  demo: () => runDemo(),
+};
+
+/** Option names of the core's messages, as the CLI spells them. */
+function cliWording(message: string): string {
+  return message
+    .replace(/^maxLag\b/, "--lags")
+    .replace(/^fittedParams\b/, "--fitted")
+    .replace(/^alpha\b/, "--alpha")
+    .replace(/^season\b/, "--season")
+    .replace(/^bandKind\b/, "--bands")
+    .replace(/^testKind\b/, "--test");
+}
+
+export function main(argv: readonly string[]): number {
+  const [name, ...rest] = argv;
+  if (name === "--help" || name === "help") {
+    process.stdout.write(`${USAGE}\n`);
+    return 0;
+  }
+  if (name === undefined) {
+    process.stderr.write(`echolot: no command given\n${USAGE}\n`);
+    return 2;
+  }
+  const command = COMMANDS[name];
+  try {
+    if (command === undefined) throw new UsageError(`unknown command "${name}"\n${USAGE}`);
+    const output = command(rest);
+    process.stdout.write(output.endsWith("\n") ? output : `${output}\n`);
+    return 0;
+  } catch (error) {
+    if (error instanceof UsageError || isEcholotError(error)) {
+      process.stderr.write(`echolot: ${cliWording(error.message)}\n`);
+      return 2;
+    }
+    process.stderr.write(`echolot: internal error: ${(error as Error).stack ?? String(error)}\n`);
+    return 1;
+  }
+}
+
+process.exitCode = main(process.argv.slice(2));

@@ -1,0 +1,139 @@
+/**
+ * Builds the add-in into dist/: the functions bundle, functions.json (from the JSDoc of
+ * functions/functions.ts, plus the allowErrorForDataTypeAny flag), taskpane.html with its bundle,
+ * the manifest and icons, and — unless OFFICE_JS=cdn — a local copy of office.js.
+ *
+ * One page, one runtime: taskpane.html loads office.js, then both bundles, so the pane and the cell
+ * functions share a runtime (the manifest's SharedRuntime).
+ *
+ *   npm run build              production build, office.js from the local copy (offline, tests)
+ *   OFFICE_JS=cdn npm run build   store build: office.js from the official CDN, no local copy
+ *   npm start                  dev server, https on port 3000 (http on 127.0.0.1 as a fallback)
+ */
+const path = require("node:path");
+const CopyWebpackPlugin = require("copy-webpack-plugin");
+const HtmlWebpackPlugin = require("html-webpack-plugin");
+const CustomFunctionsMetadataPlugin = require("custom-functions-metadata-plugin");
+const { AllowErrorCellsPlugin } = require("./scripts/allow-error-cells-plugin.cjs");
+const { devCertificates } = require("./scripts/dev-certs.cjs");
+
+const PORT = 3000;
+const OFFICE_JS_CDN = "https://appsforoffice.microsoft.com/lib/1/hosted/office.js";
+const OFFICE_JS_LOCAL = "office-js/office.js";
+
+/** Files copied as they are, each named exactly (a wildcard at the root makes watch loop). */
+function copyPatterns(useCdn) {
+  const patterns = [
+    { from: "manifest/manifest.xml", to: "manifest.xml" },
+    { from: "manifest/icons", to: "assets" },
+  ];
+  if (!useCdn) {
+    patterns.push({
+      // office.js loads its sibling files at run time, so the whole dist folder is copied.
+      from: path.dirname(require.resolve("@microsoft/office-js/dist/office.js")),
+      to: "office-js",
+      info: { minimized: true },
+    });
+  }
+  return patterns;
+}
+
+async function devServer() {
+  const certificates = await devCertificates();
+  const shared = {
+    port: PORT,
+    static: false,
+    hot: false,
+    liveReload: false,
+    headers: { "Access-Control-Allow-Origin": "*" },
+    client: false,
+    onListening: () => printHowToLoad(certificates),
+  };
+  if (certificates.https === undefined) {
+    return { ...shared, host: "127.0.0.1", server: "http" };
+  }
+  return {
+    ...shared,
+    host: "localhost",
+    server: { type: "https", options: certificates.https },
+  };
+}
+
+function printHowToLoad(certificates) {
+  const lines = [""];
+  if (certificates.https === undefined) {
+    lines.push(
+      `NOTICE: no https certificate (${certificates.problem}).`,
+      `Serving plain http on http://127.0.0.1:${PORT}/ — enough to open taskpane.html in a browser,`,
+      "but a spreadsheet host loads add-ins over https only. Fix the certificate and run npm start again.",
+    );
+  } else {
+    lines.push(
+      `Echolot is served at https://localhost:${PORT}/ (manifest: https://localhost:${PORT}/manifest.xml).`,
+      `The certificate is signed by a local development CA: ${certificates.caPath}`,
+      "Trust it once on the machine that runs the spreadsheet host, for example:",
+      "  Debian/Ubuntu: cp <ca.crt> /usr/local/share/ca-certificates/office-addin-dev-ca.crt && update-ca-certificates",
+      "  macOS:         security add-trusted-cert -d -r trustRoot -k ~/Library/Keychains/login.keychain-db <ca.crt>",
+      "  Windows:       certutil -user -addstore Root <ca.crt>",
+    );
+  }
+  lines.push(
+    "",
+    "Load the add-in (sideload manifest/manifest.xml):",
+    "  Desktop host: put manifest.xml in a folder shared as a trusted add-in catalog",
+    "    (Trust Center > Trusted Add-in Catalogs), restart, then Insert > My Add-ins > Shared Folder.",
+    "  Web host: open a workbook, Home > Add-ins > More add-ins > My add-ins > Upload My Add-in,",
+    "    and choose manifest/manifest.xml.",
+    "Then type =ECHOLOT.SERIESLAGTABLE(B2:B241) beside a column of residuals.",
+    "",
+  );
+  console.log(lines.join("\n"));
+}
+
+module.exports = async (env, argv) => {
+  const production = argv.mode === "production";
+  const useCdn = process.env.OFFICE_JS === "cdn";
+  const serving = Boolean(process.env.WEBPACK_SERVE);
+  return {
+    mode: production ? "production" : "development",
+    devtool: production ? "source-map" : "eval-source-map",
+    context: __dirname,
+    entry: {
+      functions: "./functions/functions.ts",
+      taskpane: "./taskpane/taskpane.ts",
+    },
+    output: {
+      path: path.resolve(__dirname, "dist"),
+      filename: "[name].js",
+      clean: true,
+    },
+    resolve: { extensions: [".ts", ".js"] },
+    module: {
+      rules: [
+        {
+          test: /\.ts$/,
+          exclude: /node_modules/,
+          use: { loader: "ts-loader", options: { transpileOnly: true } },
+        },
+      ],
+    },
+    plugins: [
+      new CustomFunctionsMetadataPlugin({
+        output: "functions.json",
+        input: "./functions/functions.ts",
+      }),
+      new AllowErrorCellsPlugin({ file: "functions.json" }),
+      new HtmlWebpackPlugin({
+        filename: "taskpane.html",
+        template: "./taskpane/taskpane.html",
+        chunks: ["functions", "taskpane"],
+        chunksSortMode: "manual",
+        officeJs: useCdn ? OFFICE_JS_CDN : OFFICE_JS_LOCAL,
+      }),
+      new CopyWebpackPlugin({ patterns: copyPatterns(useCdn) }),
+    ],
+    performance: { hints: false },
+    watchOptions: { ignored: ["**/node_modules/**", "**/dist/**", "**/build/**", "**/.git/**"] },
+    ...(serving ? { devServer: await devServer() } : {}),
+  };
+};
