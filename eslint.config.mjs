@@ -17,7 +17,10 @@ export default tseslint.config(
     // Core and report are pure: no Office, no DOM globals, no file system.
     files: ["src/core/**/*.ts", "src/report/**/*.ts"],
     rules: {
-      "no-restricted-imports": ["error", { patterns: ["node:*", "fs", "path", "../cli/*", "../../functions/*", "../../taskpane/*"] }],
+      "no-restricted-imports": [
+        "error",
+        { patterns: ["node:*", "fs", "path", "../cli/*", "../../functions/*", "../../taskpane/*"] },
+      ],
       "@typescript-eslint/no-explicit-any": "error",
     },
   },

@@ -2,7 +2,13 @@
 // `npx echolot` works right after `npm ci` (the `prepare` script runs this).
 import { build } from "esbuild";
 
-const common = { bundle: true, platform: "node", target: "node20", format: "cjs", logLevel: "warning" };
+const common = {
+  bundle: true,
+  platform: "node",
+  target: "node20",
+  format: "cjs",
+  logLevel: "warning",
+};
 
 await build({
   ...common,
@@ -10,4 +16,8 @@ await build({
   outfile: "build/echolot.cjs",
   banner: { js: "#!/usr/bin/env node" },
 });
-await build({ ...common, entryPoints: ["scripts/generate-demo.ts"], outfile: "build/generate-demo.cjs" });
+await build({
+  ...common,
+  entryPoints: ["scripts/generate-demo.ts"],
+  outfile: "build/generate-demo.cjs",
+});

@@ -47,8 +47,7 @@ const BLENDS: readonly (readonly [string, Kind])[] = [
 ];
 
 function blendErrors(kind: Kind, scale: number, random: ReturnType<typeof seededRandom>): number[] {
-  const base =
-    kind === "under-reacts" ? ar1(random, WEEKS, 0.55) : whiteNoise(random, WEEKS);
+  const base = kind === "under-reacts" ? ar1(random, WEEKS, 0.55) : whiteNoise(random, WEEKS);
   const phase = Math.floor(random.uniform() * 13);
   return Array.from(base, (e, week) => {
     let value = e;
@@ -76,7 +75,9 @@ function businessDays(count: number): string[] {
 
 function ternpoint(): string {
   const random = seededRandom(SEED);
-  const columns = BLENDS.map(([, kind]) => blendErrors(kind, 20 + Math.round(random.uniform() * 40), random));
+  const columns = BLENDS.map(([, kind]) =>
+    blendErrors(kind, 20 + Math.round(random.uniform() * 40), random),
+  );
   const header = ["week ending", ...BLENDS.map(([name]) => name)];
   const rows = [header.join(",")];
   for (let week = 0; week < WEEKS; week++) {
@@ -99,6 +100,14 @@ const FILES: Readonly<Record<string, () => string>> = {
   "larkvale-fund-residuals.csv": larkvale,
 };
 
+function readOrEmpty(path: string): string {
+  try {
+    return readFileSync(path, "utf8");
+  } catch {
+    return "";
+  }
+}
+
 const directory = join(__dirname, "..", "demo");
 const check = process.argv.includes("--check");
 mkdirSync(directory, { recursive: true });
@@ -107,15 +116,12 @@ for (const [name, make] of Object.entries(FILES)) {
   const path = join(directory, name);
   const text = make();
   if (check) {
-    let current = "";
-    try {
-      current = readFileSync(path, "utf8");
-    } catch {
-      current = "";
-    }
+    const current = readOrEmpty(path);
     if (current !== text) {
       stale++;
-      process.stderr.write(`demo/${name} differs from what the generator writes: run npm run demo:generate\n`);
+      process.stderr.write(
+        `demo/${name} differs from what the generator writes: run npm run demo:generate\n`,
+      );
     }
   } else {
     writeFileSync(path, text);

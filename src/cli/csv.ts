@@ -74,11 +74,17 @@ export function columnSeries(table: CsvTable, column: number): Series {
     const cell = row[column] ?? "";
     if (GAP_WORDS.has(cell)) return null;
     if (!NUMBER.test(cell)) {
-      invalid(`${where(i)} holds "${cell}", which is not a number; write a number, or leave it empty or NA for a gap`);
+      invalid(
+        `${where(i)} holds "${cell}", which is not a number; write a number, or leave it empty or NA for a gap`,
+      );
     }
     return Number(cell);
   });
-  return seriesFromValues(cells, { label: header, labelFromFirstCell: false, describePosition: where });
+  return seriesFromValues(cells, {
+    label: header,
+    labelFromFirstCell: false,
+    describePosition: where,
+  });
 }
 
 /** Every numeric column of the table, as series (for batch and audit). */

@@ -34,7 +34,9 @@ export function parseCommand(argv: readonly string[]): ParsedCommand {
       strict: true,
     });
     if (positionals.length > 1) {
-      throw new UsageError(`expected one CSV file, got ${positionals.length}: ${positionals.join(" ")}`);
+      throw new UsageError(
+        `expected one CSV file, got ${positionals.length}: ${positionals.join(" ")}`,
+      );
     }
     return { file: positionals[0], values };
   } catch (error) {

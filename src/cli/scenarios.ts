@@ -32,8 +32,14 @@ export const DEMO_SCENARIOS: readonly DemoScenario[] = [
     story:
       "Volatility clustering and no linear dependence: plain bands over-alarm; robust bands and the squared-residual check tell the true story.",
     readings: [
-      { name: "noise bands, Ljung–Box", options: { bandKind: "noise", testKind: "ljung-box", maxLag: 20 } },
-      { name: "robust bands, robust Q*", options: { bandKind: "robust", testKind: "robust", maxLag: 20 } },
+      {
+        name: "noise bands, Ljung–Box",
+        options: { bandKind: "noise", testKind: "ljung-box", maxLag: 20 },
+      },
+      {
+        name: "robust bands, robust Q*",
+        options: { bandKind: "robust", testKind: "robust", maxLag: 20 },
+      },
       { name: "squared deviations (McLeod–Li)", options: { testKind: "squares", maxLag: 20 } },
     ],
   },

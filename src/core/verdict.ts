@@ -102,7 +102,9 @@ export function judge(input: VerdictInput): Verdict {
 
   const describeLag = (lag: number) => {
     const row = lags[lag - 1];
-    return row === undefined ? `lag ${lag}` : `lag ${lag} (r = ${formatNumber(row.correlation, 3)})`;
+    return row === undefined
+      ? `lag ${lag}`
+      : `lag ${lag} (r = ${formatNumber(row.correlation, 3)})`;
   };
   const parts: string[] = [];
   if (triggers.jointRejects || triggers.outerLags.length > 0) {
@@ -125,7 +127,8 @@ export function judge(input: VerdictInput): Verdict {
   if (triggers.lagOne || triggers.seasonalLags.length > 0 || triggers.excessCrossings) {
     const signs: string[] = [];
     if (triggers.lagOne) signs.push(`${describeLag(1)} crosses its band`);
-    for (const lag of triggers.seasonalLags) signs.push(`seasonal ${describeLag(lag)} crosses its band`);
+    for (const lag of triggers.seasonalLags)
+      signs.push(`seasonal ${describeLag(lag)} crosses its band`);
     if (triggers.excessCrossings) signs.push("more lags cross the band than chance explains");
     parts.push(
       `${capitalise(signs.join("; "))}, though ${testName} over ${maxLag} lags does not reject (p = ${formatP(joint.p)}).`,
@@ -133,7 +136,9 @@ export function judge(input: VerdictInput): Verdict {
     return { word: "watch", reason: `${parts.join(" ")} ${note}`, triggers };
   }
 
-  parts.push(`No leftover structure found: ${testName} over ${maxLag} lags gives p = ${formatP(joint.p)}.`);
+  parts.push(
+    `No leftover structure found: ${testName} over ${maxLag} lags gives p = ${formatP(joint.p)}.`,
+  );
   if (falseAlarm.beyond === 1) {
     parts.push(
       `${capitalise(describeLag(falseAlarm.beyondLags[0] as number))} crosses its band alone; a lone lag that is neither lag 1 nor seasonal is weak evidence.`,

@@ -39,13 +39,7 @@ export function movingAverage(random: Random, n: number, thetas: readonly number
 }
 
 /** e_t = σ_t z_t, σ_t² = ω + a e_{t−1}² + b σ_{t−1}². Defaults give strong clustering. */
-export function garch11(
-  random: Random,
-  n: number,
-  omega = 0.05,
-  a = 0.15,
-  b = 0.8,
-): Float64Array {
+export function garch11(random: Random, n: number, omega = 0.05, a = 0.15, b = 0.8): Float64Array {
   const x = new Float64Array(n);
   let variance = omega / (1 - a - b);
   let previous = 0;
