@@ -10,6 +10,7 @@
  *   OFFICE_JS=cdn npm run build   store build: office.js from the official CDN, no local copy
  *   npm start                  dev server, https on port 3000 (http on 127.0.0.1 as a fallback)
  */
+/* eslint-disable @typescript-eslint/no-require-imports -- a CommonJS file, loaded by webpack-cli */
 const path = require("node:path");
 const CopyWebpackPlugin = require("copy-webpack-plugin");
 const HtmlWebpackPlugin = require("html-webpack-plugin");

@@ -17,7 +17,8 @@ export function readSeries(cells: unknown, name = "series"): Series {
 function describe(value: unknown): string {
   const code = cellErrorCode(value);
   if (code !== undefined) return `the error ${code}`;
-  if (typeof value === "string") return `the text "${value.length > 24 ? `${value.slice(0, 24)}…` : value}"`;
+  if (typeof value === "string")
+    return `the text "${value.length > 24 ? `${value.slice(0, 24)}…` : value}"`;
   if (typeof value === "boolean") return value ? "TRUE" : "FALSE";
   return String(value);
 }

@@ -6,6 +6,7 @@
  * plugin has put functions.json into the compilation, and replaces the asset through webpack's
  * API rather than editing the emitted file.
  */
+/* eslint-disable @typescript-eslint/no-require-imports -- a CommonJS file, loaded by webpack-cli */
 const { Compilation, sources, WebpackError } = require("webpack");
 
 const PLUGIN_NAME = "AllowErrorCellsPlugin";

@@ -6,6 +6,7 @@
  * leave trusting the CA to the user, with instructions. If anything fails, the caller falls back
  * to plain http on 127.0.0.1 and says so.
  */
+/* eslint-disable @typescript-eslint/no-require-imports -- a CommonJS file, loaded by webpack-cli */
 const fs = require("node:fs");
 const crypto = require("node:crypto");
 const devCerts = require("office-addin-dev-certs");
