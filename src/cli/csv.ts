@@ -36,16 +36,17 @@ export function readCsv(file: string): CsvTable {
   return { file, headers, rows };
 }
 
-/** Whether every non-gap cell of a column is a number. */
+/**
+ * Whether a column holds a series: its first non-gap cell is a number. A column of dates or names
+ * is skipped; a numeric column with a stray word further down is read, and the word refused with
+ * its row and column, so nothing is silently dropped.
+ */
 export function isNumericColumn(table: CsvTable, column: number): boolean {
-  let seen = false;
   for (const row of table.rows) {
     const cell = row[column] ?? "";
-    if (GAP_WORDS.has(cell)) continue;
-    if (!NUMBER.test(cell)) return false;
-    seen = true;
+    if (!GAP_WORDS.has(cell)) return NUMBER.test(cell);
   }
-  return seen;
+  return false;
 }
 
 /** Resolves `--column NAME|N` (N counts from 1); without it, the first numeric column. */

@@ -41,7 +41,7 @@ export function parseCommand(argv: readonly string[]): ParsedCommand {
     return { file: positionals[0], values };
   } catch (error) {
     if (error instanceof UsageError) throw error;
-    throw new UsageError((error as Error).message);
+    throw new UsageError((error as Error).message.replace(/\s*\n\s*/g, " "));
   }
 }
 
