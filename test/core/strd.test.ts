@@ -120,9 +120,7 @@ describe("NIST StRD univariate: lagTable(series) mean and r1, centre(series) c0 
   afterAll(() => {
     if (table.length === 0) return;
     const order = Object.keys(REQUIRED);
-    const sorted = [...table].sort(
-      (a, b) => order.indexOf(a.dataset) - order.indexOf(b.dataset),
-    );
+    const sorted = [...table].sort((a, b) => order.indexOf(a.dataset) - order.indexOf(b.dataset));
     const markdown = markdownTable(sorted);
     console.log(`NIST StRD log relative errors (capped at 15):\n${markdown}`);
     const outputDirectory = join(FIXTURES, "..", "..", "test-output");

@@ -51,7 +51,10 @@ export function exactStatistics(values: readonly ExactNumber[]): ExactStatistics
 }
 
 /** Exact r_0..r_K of the biased estimator (Box, Jenkins & Reinsel; NIST e-Handbook §1.3.5.12). */
-export function exactAutocorrelations(values: readonly ExactNumber[], maxLag: number): ExactNumber[] {
+export function exactAutocorrelations(
+  values: readonly ExactNumber[],
+  maxLag: number,
+): ExactNumber[] {
   const n = values.length;
   const mean = values.reduce((sum, x) => sum.plus(x), new Exact(0)).dividedBy(n);
   const d = values.map((x) => x.minus(mean));
@@ -74,7 +77,10 @@ export const LRE_CAP = 15;
  * scores 15); for a reference of 0 the absolute error −log10|computed| is used instead.
  * Convention of the NIST StRD scoring (McCullough 1998, Am. Stat. 52:358–366).
  */
-export function logRelativeError(computed: ExactNumber | number, reference: ExactNumber | string): number {
+export function logRelativeError(
+  computed: ExactNumber | number,
+  reference: ExactNumber | string,
+): number {
   const c = typeof computed === "number" ? exactOfDouble(computed) : computed;
   const ref = typeof reference === "string" ? new Exact(reference) : reference;
   const error = c.minus(ref).abs();
