@@ -7,43 +7,156 @@
  *
  * Gap-aware: gaps have d_t = 0, so each lag sum runs over the pairs where both values exist, and n
  * is the number of values present. A lag with no available pair is `NaN` (undefined, not zero).
- * Lag sums are blocked and compensated (see sums.ts). Cost O(n·K).
+ * Lag sums take the direct path (cache-blocked, fused over six lags, compensated across blocks:
+ * O(n·K)) below a measured crossover and the transform path (fft.ts: O(n log K)) above it.
  */
 import { centre } from "./centre";
 import { invalid } from "./errors";
-import { BLOCK, CompensatedSum } from "./sums";
+import { fftBlockSize, fftLagProductSums } from "./fft";
+import { BLOCK, CompensatedSums } from "./sums";
 import type { Series } from "./types";
 
-/** s_k = Σ_t a_t a_{t−k} for k = 0..maxLag (blocked compensated sums). O(n·K). */
-export function lagProductSums(a: Float64Array, maxLag: number): Float64Array {
+/**
+ * Lags summed together in one pass of the direct path: six running sums and a window of the six
+ * values a_{t−k} still fit in the processor's registers, so each value is loaded once per
+ * group instead of once per lag.
+ */
+const LAG_GROUP = 6;
+
+/**
+ * s_k = Σ_t a_t a_{t−k} for k = 0..maxLag, the direct way: O(n·K).
+ *
+ * Cache-blocked and fused: the series is walked in blocks of `BLOCK` positions; within a block,
+ * each group of six lags is summed in one loop that reuses every loaded value six times (a
+ * sliding window a_{t−k0}, …, a_{t−k0−5}). Block sums are plain and are added across blocks with
+ * Neumaier compensation (sums.ts).
+ */
+export function directLagProductSums(a: Float64Array, maxLag: number): Float64Array {
   const length = a.length;
-  const sums = new Float64Array(maxLag + 1);
-  for (let k = 0; k <= maxLag; k++) {
-    const acc = new CompensatedSum();
-    for (let from = k; from < length; from += BLOCK) {
-      const to = Math.min(length, from + BLOCK);
-      let block = 0;
-      for (let t = from; t < to; t++) block += (a[t] as number) * (a[t - k] as number);
-      acc.add(block);
+  const totals = new CompensatedSums(maxLag + 1);
+  const group = new Float64Array(LAG_GROUP);
+  for (let from = 0; from < length; from += BLOCK) {
+    const to = Math.min(length, from + BLOCK);
+    for (let k0 = 0; k0 <= maxLag; k0 += LAG_GROUP) {
+      const lastLag = Math.min(maxLag, k0 + LAG_GROUP - 1);
+      // Positions where all six lags of the group have a partner (t − k0 − 5 ≥ 0).
+      const start = Math.min(to, Math.max(from, k0 + LAG_GROUP - 1));
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      let s4 = 0;
+      let s5 = 0;
+      if (start < to) {
+        const base = start - k0;
+        let w1 = a[base - 1] as number;
+        let w2 = a[base - 2] as number;
+        let w3 = a[base - 3] as number;
+        let w4 = a[base - 4] as number;
+        let w5 = a[base - 5] as number;
+        for (let t = start; t < to; t++) {
+          const x = a[t] as number;
+          const w0 = a[t - k0] as number;
+          s0 += x * w0;
+          s1 += x * w1;
+          s2 += x * w2;
+          s3 += x * w3;
+          s4 += x * w4;
+          s5 += x * w5;
+          w5 = w4;
+          w4 = w3;
+          w3 = w2;
+          w2 = w1;
+          w1 = w0;
+        }
+      }
+      group[0] = s0;
+      group[1] = s1;
+      group[2] = s2;
+      group[3] = s3;
+      group[4] = s4;
+      group[5] = s5;
+      for (let k = k0; k <= lastLag; k++) {
+        // The first positions of the series, where only some lags of the group have a partner.
+        let head = 0;
+        for (let t = Math.max(from, k); t < start; t++)
+          head += (a[t] as number) * (a[t - k] as number);
+        totals.add(k, (group[k - k0] as number) + head);
+      }
     }
-    sums[k] = acc.value;
   }
-  return sums;
+  return totals.values();
+}
+/**
+ * Cost of one transform step (one element of one radix-2 stage, with its share of the block
+ * copying and spectrum sums) in units of one multiply-add of the direct path. Measured on the
+ * development machine by `npm run bench` (the `crossover` line); the choice is not sensitive to
+ * it: a factor of two moves the crossover by less than a factor of two in K.
+ */
+export const FFT_STEP_COST = 7;
+
+/**
+ * Whether the transform path is expected to be faster than the direct path for lags 0..maxLag
+ * on `length` positions: direct work Σ_{k≤K} (length − k) multiply-adds against
+ * blocks·N·log₂N transform steps (fft.ts).
+ */
+export function prefersFft(length: number, maxLag: number): boolean {
+  const lags = Math.min(maxLag, length - 1) + 1;
+  const direct = lags * (length - (lags - 1) / 2);
+  const size = fftBlockSize(length, maxLag);
+  const blocks = Math.ceil(length / (size - maxLag));
+  const transform = (blocks + 1) * size * Math.log2(size) * FFT_STEP_COST;
+  return transform < direct;
 }
 
-/** Number of pairs (t, t−k) with both values present, k = 0..maxLag. O(n·K) with gaps, O(K) without. */
+/**
+ * s_k = Σ_t a_t a_{t−k} for k = 0..maxLag: the direct path below the crossover, the transform
+ * path above it (`prefersFft`).
+ */
+export function lagProductSums(a: Float64Array, maxLag: number): Float64Array {
+  return prefersFft(a.length, maxLag)
+    ? fftLagProductSums(a, maxLag)
+    : directLagProductSums(a, maxLag);
+}
+
+/**
+ * Number of pairs (t, t−k) with both values present, k = 0..maxLag. O(K) without gaps. With gaps,
+ * by inclusion–exclusion: of the length − k pairs at lag k, those with a gap at t or at t − k are
+ * lost, and those with gaps at both ends were counted twice; the last term needs only the pairs of
+ * gaps at most K apart, O(n + gaps·K) at worst. Above the crossover, by transforming the presence
+ * mask instead (the same path as the lag sums).
+ */
 export function pairCounts(series: Series, maxLag: number): Int32Array {
-  const counts = new Int32Array(maxLag + 1);
-  const { present } = series;
+  const { present, gaps } = series;
   const length = present.length;
-  for (let k = 0; k <= maxLag; k++) {
-    if (series.gaps === 0) {
-      counts[k] = Math.max(0, length - k);
-      continue;
+  const counts = new Int32Array(maxLag + 1);
+  for (let k = 0; k <= maxLag; k++) counts[k] = Math.max(0, length - k);
+  if (gaps === 0) return counts;
+  if (prefersFft(length, maxLag)) {
+    const sums = fftLagProductSums(present, maxLag);
+    for (let k = 0; k <= maxLag; k++) counts[k] = Math.round(sums[k] as number);
+    return counts;
+  }
+  const positions = new Int32Array(gaps);
+  let found = 0;
+  for (let t = 0; t < length; t++) if (present[t] === 0) positions[found++] = t;
+  // Gaps at t ≥ k (the later end missing) and at t < length − k (the earlier end missing).
+  let gapsBefore = 0;
+  let gapsAfter = 0;
+  for (let k = 0; k <= maxLag && k <= length; k++) {
+    counts[k] = (counts[k] as number) - (found - gapsBefore) - (found - gapsAfter);
+    if (k < length) {
+      gapsBefore += 1 - (present[k] as number);
+      gapsAfter += 1 - (present[length - 1 - k] as number);
     }
-    let c = 0;
-    for (let t = k; t < length; t++) c += (present[t] as number) & (present[t - k] as number);
-    counts[k] = c;
+  }
+  // Pairs with both ends at gaps, added back once.
+  for (let i = 0; i < found; i++) {
+    const p = positions[i] as number;
+    for (let j = i; j < found && (positions[j] as number) - p <= maxLag; j++) {
+      const lag = (positions[j] as number) - p;
+      counts[lag] = (counts[lag] as number) + 1;
+    }
   }
   return counts;
 }

@@ -5,9 +5,9 @@
  * term also captures the case where the addend is larger than the running sum. Error bound
  * about 2·eps·Σ|x_i|, independent of n, at four extra flops per term.
  *
- * `blockedSum` adds blocks of `BLOCK` terms plainly and the block totals with compensation: the
- * error is then about BLOCK·eps per block relative to the block's own magnitude, which keeps the
- * inner loop as fast as a plain loop. Used for the long lag sums, where speed matters.
+ * Long sums (centring, lag sums) are blocked: `BLOCK` terms are added plainly and the block
+ * totals with compensation. The error is then about BLOCK·eps per block relative to the block's
+ * own magnitude, and the inner loop runs as fast as a plain loop.
  */
 export const BLOCK = 256;
 
@@ -28,6 +28,37 @@ export class CompensatedSum {
 
   get value(): number {
     return this.sum + this.compensation;
+  }
+}
+
+/**
+ * Many Neumaier accumulators side by side (one per lag, say), held in two typed arrays so that
+ * adding to one allocates nothing. `add(i, x)` is `CompensatedSum.add` for accumulator i.
+ */
+export class CompensatedSums {
+  private readonly sums: Float64Array;
+  private readonly compensations: Float64Array;
+
+  constructor(count: number) {
+    this.sums = new Float64Array(count);
+    this.compensations = new Float64Array(count);
+  }
+
+  add(index: number, value: number): void {
+    const sum = this.sums[index] as number;
+    const t = sum + value;
+    const lost = Math.abs(sum) >= Math.abs(value) ? sum - t + value : value - t + sum;
+    this.compensations[index] = (this.compensations[index] as number) + lost;
+    this.sums[index] = t;
+  }
+
+  /** The compensated totals, one per accumulator. */
+  values(): Float64Array {
+    const totals = new Float64Array(this.sums.length);
+    for (let i = 0; i < totals.length; i++) {
+      totals[i] = (this.sums[i] as number) + (this.compensations[i] as number);
+    }
+    return totals;
   }
 }
 
