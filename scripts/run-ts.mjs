@@ -20,7 +20,7 @@ if (entry === undefined) {
 
 const directory = mkdtempSync(join(tmpdir(), "echolot-run-"));
 const outfile = join(directory, "entry.cjs");
-let status = 1;
+let status;
 try {
   await build({
     entryPoints: [resolve(entry)],
