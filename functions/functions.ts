@@ -21,8 +21,7 @@ import { cellFunction } from "./cellFunction";
 import { column, row } from "./shape";
 
 /**
- * Autocovariance of a series at lags 0 to maxLag (divide-by-n estimator). Spills a column of
- * maxLag + 1 numbers, lag 0 (the variance) first.
+ * Autocovariance at lags 0 to maxLag (divide-by-n); spills a column, lag 0 (the variance) first.
  * @customfunction SERIESLAGCOV
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
@@ -33,7 +32,7 @@ export function seriesLagCov(series: any[][], maxLag?: number): any[][] {
 }
 
 /**
- * Autocorrelation of a series at lags 1 to maxLag. Spills a column of maxLag numbers.
+ * Autocorrelation at lags 1 to maxLag; spills a column of maxLag numbers.
  * @customfunction SERIESLAGCORR
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
@@ -44,7 +43,7 @@ export function seriesLagCorr(series: any[][], maxLag?: number): any[][] {
 }
 
 /**
- * Partial autocorrelation of a series at lags 1 to maxLag (Durbin–Levinson). Spills a column.
+ * Partial autocorrelation at lags 1 to maxLag (Durbin–Levinson); spills a column.
  * @customfunction SERIESPARTIALCORR
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
@@ -55,7 +54,7 @@ export function seriesPartialCorr(series: any[][], maxLag?: number): any[][] {
 }
 
 /**
- * Half-width of the significance band for the autocorrelation at lags 1 to maxLag. Spills a column.
+ * Significance band half-width for the autocorrelation at lags 1 to maxLag; spills a column.
  * @customfunction SERIESBAND
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
@@ -75,8 +74,7 @@ export function seriesBand(
 }
 
 /**
- * The lag table: autocorrelation, partial autocorrelation, z and p-values for lags 1 to maxLag.
- * Spills a header row and one row per lag.
+ * Lag table: autocorrelation, partial, z and three p-values per lag; spills a header and one row per lag.
  * @customfunction SERIESLAGTABLE
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
@@ -111,7 +109,7 @@ export function seriesLagTable(
 }
 
 /**
- * Joint (portmanteau) test that lags 1 to lags are all zero. Spills one row: Q, df, p.
+ * Joint (portmanteau) test that the autocorrelations at lags 1 to lags are all zero; spills Q, df, p.
  * @customfunction SERIESPORTMANTEAU
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [lags] Number of lags tested, a whole number from 1 to n − 1. Default: min(10, n/5).
@@ -142,8 +140,7 @@ export function seriesPortmanteau(
 }
 
 /**
- * Is this series white noise? A verdict — clear, watch, structure or short — and the reason,
- * with the false alarms expected from testing many lags. A statistical screen, not a decision.
+ * Is the series white noise? Spills a verdict (clear, watch, structure, short) and its reason; a screen, not a decision.
  * @customfunction SERIESNOISECHECK
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Lags tested, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).

@@ -1,0 +1,105 @@
+/**
+ * The built add-in as a whole: the page that the manifest names loads office.js from the local
+ * copy before both bundles (one shared runtime), the pane's bundle registers no function, the
+ * bundles send nothing out, and OFFICE_JS=cdn switches the page to the official CDN without
+ * copying office.js.
+ */
+import { execFileSync } from "node:child_process";
+import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { createContext, runInContext } from "node:vm";
+import { describe, expect, it } from "vitest";
+import { DIST, distFile } from "./host";
+
+const ROOT = join(DIST, "..");
+
+function scriptSources(html: string): string[] {
+  return [...html.matchAll(/<script[^>]*\ssrc="?([^"\s>]+)"?/g)].map((m) => m[1] as string);
+}
+
+describe("npm run build", () => {
+  it("emits functions.js, functions.json, taskpane.html/.js, the manifest, icons and office.js", () => {
+    for (const file of [
+      "functions.js",
+      "functions.json",
+      "taskpane.html",
+      "taskpane.js",
+      "manifest.xml",
+      "assets/icon-16.png",
+      "assets/icon-32.png",
+      "assets/icon-64.png",
+      "assets/icon-80.png",
+      "office-js/office.js",
+    ]) {
+      expect(existsSync(join(DIST, file)), `dist/${file}`).toBe(true);
+    }
+    // office.js loads host-specific files from its own folder at run time: the folder is whole.
+    expect(existsSync(join(DIST, "office-js", "excel-web-16.00.js"))).toBe(true);
+  });
+
+  it("writes a pane page that loads the local office.js first, then both bundles", () => {
+    const html = readFileSync(distFile("taskpane.html"), "utf8");
+    expect(scriptSources(html)).toEqual(["office-js/office.js", "functions.js", "taskpane.js"]);
+    expect(html).toContain("The pane is loading");
+  });
+
+  it("builds a pane bundle that registers no cell function and reports where it runs", () => {
+    const status = { textContent: "" };
+    let associated = 0;
+    let ready: ((info: { host: string | null }) => void) | undefined;
+    const context = createContext({
+      document: { getElementById: (id: string) => (id === "pane-status" ? status : null) },
+      Office: {
+        onReady: (callback: (info: { host: string | null }) => void) => {
+          ready = callback;
+          return Promise.resolve();
+        },
+      },
+      CustomFunctions: { associate: () => associated++ },
+    });
+    runInContext(readFileSync(distFile("taskpane.js"), "utf8"), context);
+    expect(associated).toBe(0);
+    ready?.({ host: null });
+    expect(status.textContent).toContain("outside a spreadsheet host");
+    ready?.({ host: "Excel" });
+    expect(status.textContent).toContain("cell functions are ready");
+  });
+
+  it("builds bundles that make no network call and name no outside address", () => {
+    for (const file of ["functions.js", "taskpane.js"]) {
+      const code = readFileSync(distFile(file), "utf8");
+      expect(code, file).not.toMatch(/fetch\(|XMLHttpRequest|WebSocket|sendBeacon|https?:\/\//);
+    }
+  });
+
+  it("switches to the office.js CDN with OFFICE_JS=cdn and then copies no local office.js", () => {
+    const out = mkdtempSync(join(tmpdir(), "echolot-cdn-"));
+    try {
+      execFileSync(
+        process.execPath,
+        [
+          join(ROOT, "node_modules", "webpack-cli", "bin", "cli.js"),
+          "--mode",
+          "production",
+          "--output-path",
+          out,
+        ],
+        { cwd: ROOT, env: { ...process.env, OFFICE_JS: "cdn" }, stdio: "pipe" },
+      );
+      const html = readFileSync(join(out, "taskpane.html"), "utf8");
+      expect(scriptSources(html)).toEqual([
+        "https://appsforoffice.microsoft.com/lib/1/hosted/office.js",
+        "functions.js",
+        "taskpane.js",
+      ]);
+      expect(existsSync(join(out, "office-js"))).toBe(false);
+      const metadata = JSON.parse(readFileSync(join(out, "functions.json"), "utf8")) as {
+        allowErrorForDataTypeAny?: boolean;
+      };
+      expect(metadata.allowErrorForDataTypeAny).toBe(true);
+    } finally {
+      rmSync(out, { recursive: true, force: true });
+    }
+  });
+});

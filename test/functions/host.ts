@@ -1,0 +1,161 @@
+/**
+ * A stand-in for the spreadsheet host, for loading the built add-in the way the host does: the
+ * bundle dist/functions.js runs as a script in a fresh global scope that holds `CustomFunctions`
+ * (with `associate`, `Error` and `ErrorCode`) and `Office`, and registers its functions through
+ * `associate`. `invoke` then calls a function the way the host does — every declared parameter
+ * passed, omitted optional ones as `null` — and returns the spilled array or the error value.
+ */
+import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { createContext, runInContext } from "node:vm";
+
+export const DIST = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "dist");
+
+export function distFile(name: string): string {
+  const path = join(DIST, name);
+  if (!existsSync(path)) {
+    throw new Error(`${path} is missing: run "npm run build" first (npm test does it)`);
+  }
+  return path;
+}
+
+/** Sources the functions bundle is built from (the core it calls and the functions). */
+const BUNDLE_SOURCES = ["src/core", "functions"].map((dir) => join(DIST, "..", dir));
+
+/** Refuses a bundle older than its sources: comparing it with the core would mislead. */
+function requireFreshBundle(bundle: string): void {
+  const built = statSync(bundle).mtimeMs;
+  for (const dir of BUNDLE_SOURCES) {
+    for (const name of readdirSync(dir)) {
+      const file = join(dir, name);
+      if (name.endsWith(".ts") && statSync(file).mtimeMs > built) {
+        throw new Error(`${bundle} is older than ${file}: run "npm run build" first`);
+      }
+    }
+  }
+}
+
+/** The host's error codes, as the runtime's `CustomFunctions.ErrorCode` holds them. */
+export const ErrorCode = {
+  invalidValue: "#VALUE!",
+  notAvailable: "#N/A",
+  divisionByZero: "#DIV/0!",
+  invalidNumber: "#NUM!",
+  nullReference: "#NULL!",
+  invalidName: "#NAME?",
+  invalidReference: "#REF!",
+} as const;
+
+/** An error value: what a function throws or returns, and what an error cell holds. */
+export class HostError {
+  readonly code: string;
+  readonly message: string | undefined;
+  constructor(code: string, message?: string) {
+    this.code = code;
+    this.message = message;
+  }
+}
+
+/** An error cell as it reaches an `any` parameter when functions.json allows error values. */
+export const errorCell = (code: string): HostError => new HostError(code);
+
+export type CellResult = (number | string)[][];
+export type Invocation = { readonly value: CellResult } | { readonly error: HostError };
+
+export interface FunctionMetadata {
+  readonly id: string;
+  readonly name: string;
+  readonly description: string;
+  readonly parameters: readonly {
+    readonly name: string;
+    readonly description?: string;
+    readonly type: string;
+    readonly dimensionality?: string;
+    readonly optional?: boolean;
+  }[];
+  readonly result: { readonly dimensionality?: string; readonly type?: string };
+}
+
+export interface FunctionsJson {
+  readonly allowErrorForDataTypeAny?: boolean;
+  readonly functions: readonly FunctionMetadata[];
+}
+
+export function readFunctionsJson(): FunctionsJson {
+  return JSON.parse(readFileSync(distFile("functions.json"), "utf8")) as FunctionsJson;
+}
+
+export interface LoadedAddIn {
+  /** Functions in the order the bundle associated them. */
+  readonly registered: readonly string[];
+  readonly metadata: FunctionsJson;
+  /** Calls `id` with `args`, padding omitted trailing parameters with null. */
+  invoke(id: string, ...args: unknown[]): Invocation;
+}
+
+/** Loads dist/functions.js into a fresh global scope with a fake host. */
+export function loadBuiltFunctions(): LoadedAddIn {
+  const metadata = readFunctionsJson();
+  const bundle = distFile("functions.js");
+  requireFreshBundle(bundle);
+  const source = readFileSync(bundle, "utf8");
+  const handlers = new Map<string, (...args: unknown[]) => unknown>();
+  const registered: string[] = [];
+  const CustomFunctions = {
+    associate(id: string, handler: (...args: unknown[]) => unknown) {
+      if (handlers.has(id)) throw new Error(`${id} associated twice`);
+      handlers.set(id, handler);
+      registered.push(id);
+    },
+    Error: HostError,
+    ErrorCode,
+  };
+  const Office = {
+    onReady: (callback?: (info: { host: string; platform: string }) => void) => {
+      const info = { host: "Excel", platform: "OfficeOnline" };
+      callback?.(info);
+      return Promise.resolve(info);
+    },
+  };
+  const context = createContext({ CustomFunctions, Office, console });
+  runInContext(source, context, { filename: "functions.js" });
+
+  function invoke(id: string, ...args: unknown[]): Invocation {
+    const handler = handlers.get(id);
+    const declared = metadata.functions.find((f) => f.id === id);
+    if (handler === undefined || declared === undefined) throw new Error(`${id} is not registered`);
+    if (args.length > declared.parameters.length) {
+      throw new Error(`${id} takes ${declared.parameters.length} arguments, got ${args.length}`);
+    }
+    const padded = declared.parameters.map((_, i) => (i < args.length ? args[i] : null));
+    try {
+      const value = handler(...padded);
+      if (value instanceof HostError) return { error: value };
+      return { value: value as CellResult };
+    } catch (error) {
+      if (error instanceof HostError) return { error };
+      // The host turns any other exception into a bare #VALUE!, with no message.
+      return { error: new HostError(ErrorCode.invalidValue, undefined) };
+    }
+  }
+  return { registered, metadata, invoke };
+}
+
+/** The spilled value of an invocation, or a thrown description of the error it gave. */
+export function spilled(result: Invocation, what: string): CellResult {
+  if ("error" in result) {
+    throw new Error(`${what} gave ${result.error.code}: ${result.error.message ?? "(no message)"}`);
+  }
+  return result.value;
+}
+
+/** A column range as the host passes it: one cell per row. */
+export function columnRange(cells: readonly unknown[]): unknown[][] {
+  return cells.map((cell) => [cell]);
+}
+
+/** A row range as the host passes it: one row of cells. */
+export function rowRange(cells: readonly unknown[]): unknown[][] {
+  return [[...cells]];
+}
