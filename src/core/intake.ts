@@ -7,7 +7,8 @@
  * - a text first cell is the series' label;
  * - any other text (including numbers typed as text), a boolean, any other error value, a
  *   non-finite number or any other object is refused, naming its position.
- * Nothing is silently dropped: dropping a value would shift every lag after it. O(n).
+ * Nothing is silently dropped: dropping a value would shift every lag after it. O(n), one pass
+ * over the cells, no copy of them.
  */
 import { invalid, tooShort } from "./errors";
 import type { Series } from "./types";
@@ -35,6 +36,10 @@ function isBlank(cell: unknown): boolean {
   return cell === undefined || cell === null || (typeof cell === "string" && cell.trim() === "");
 }
 
+function isGap(cell: unknown): boolean {
+  return isBlank(cell) || cellErrorCode(cell) === "#N/A";
+}
+
 /**
  * Reads a spreadsheet range (rows of cells) that must be one row or one column.
  * Positions are named "row N of the range" for a column and "column N of the range" for a row.
@@ -44,98 +49,109 @@ export function seriesFromCells(
   options: Omit<IntakeOptions, "describePosition"> = {},
 ): Series {
   const rows = cells.length;
-  const columns = rows === 0 ? 0 : Math.max(...cells.map((row) => row.length));
+  let columns = 0;
+  for (let r = 0; r < rows; r++)
+    columns = Math.max(columns, (cells[r] as readonly unknown[]).length);
   if (rows > 1 && columns > 1) {
     invalid(
       `the series must be a single row or column; the range given is ${rows} rows × ${columns} columns`,
     );
   }
-  const isRow = rows === 1 && columns > 1;
-  const list: unknown[] = isRow ? [...(cells[0] ?? [])] : cells.map((row) => row[0]);
-  const describePosition: PositionNamer = isRow
-    ? (i) => `column ${i + 1} of the range`
-    : (i) => `row ${i + 1} of the range`;
-  return seriesFromValues(list, { ...options, describePosition });
+  if (rows === 1 && columns > 1) {
+    return readSeries(cells[0] as readonly unknown[], false, {
+      ...options,
+      describePosition: (i) => `column ${i + 1} of the range`,
+    });
+  }
+  return readSeries(cells, true, {
+    ...options,
+    describePosition: (i) => `row ${i + 1} of the range`,
+  });
 }
 
 /** Reads a plain list of cells or numbers by the intake rules above. */
 export function seriesFromValues(list: readonly unknown[], options: IntakeOptions = {}): Series {
-  const describe = options.describePosition ?? ((i: number) => `item ${i + 1}`);
-  let label = options.label ?? "";
-  let start = 0;
-  const first = list[0];
-  if (
-    options.labelFromFirstCell !== false &&
-    typeof first === "string" &&
-    first.trim() !== "" &&
-    cellErrorCode(first) === undefined
-  ) {
-    label = first.trim();
-    start = 1;
-  }
-
-  const length = list.length - start;
-  const values = new Float64Array(length);
-  const present = new Uint8Array(length);
-  for (let i = 0; i < length; i++) {
-    const cell = list[i + start];
-    const where = describe(i + start);
-    if (isBlank(cell)) {
-      values[i] = NaN;
-      continue;
-    }
-    const code = cellErrorCode(cell);
-    if (code !== undefined) {
-      if (code === "#N/A") {
-        values[i] = NaN;
-        continue;
-      }
-      invalid(`${where} holds the error ${code}; fix that cell or make it blank or #N/A (a gap)`);
-    }
-    if (typeof cell === "number") {
-      if (!Number.isFinite(cell)) {
-        invalid(`${where} holds ${String(cell)}, which is not a finite number`);
-      }
-      values[i] = cell;
-      present[i] = 1;
-      continue;
-    }
-    if (typeof cell === "string") {
-      const shown = cell.length > 24 ? `${cell.slice(0, 24)}…` : cell;
-      const hint = Number.isFinite(Number(cell.trim()))
-        ? "numbers stored as text are not read; convert the cell to a number"
-        : "only numbers, blanks and #N/A (gaps) may follow the label";
-      invalid(`${where} holds the text "${shown}"; ${hint}`);
-    }
-    if (typeof cell === "boolean") {
-      invalid(`${where} holds ${cell ? "TRUE" : "FALSE"}; only numbers, blanks and #N/A are read`);
-    }
-    invalid(`${where} holds a value that is not a number; only numbers, blanks and #N/A are read`);
-  }
-  return trimmed(values, present, label);
-}
-
-function trimmed(values: Float64Array, present: Uint8Array, label: string): Series {
-  let from = 0;
-  let to = present.length;
-  while (from < to && present[from] === 0) from++;
-  while (to > from && present[to - 1] === 0) to--;
-  if (from === to) {
-    tooShort(`the series${label ? ` "${label}"` : ""} has no values: give a range with numbers`);
-  }
-  const keptPresent = present.slice(from, to);
-  let count = 0;
-  for (let t = 0; t < keptPresent.length; t++) count += keptPresent[t] as number;
-  return {
-    values: values.slice(from, to),
-    present: keptPresent,
-    label,
-    count,
-    gaps: keptPresent.length - count,
-  };
+  return readSeries(list, false, options);
 }
 
 /** A gap-free series from numbers already known to be finite (tests, generators, the bench). */
 export function seriesFromNumbers(numbers: ArrayLike<number>, label = ""): Series {
-  return seriesFromValues(Array.from(numbers), { label, labelFromFirstCell: false });
+  return readSeries(numbers, false, { label, labelFromFirstCell: false });
+}
+
+/** Cell i of a list, or the first cell of row i of a one-column range. */
+function cellAt(source: ArrayLike<unknown>, fromColumn: boolean, i: number): unknown {
+  return fromColumn ? (source[i] as readonly unknown[])[0] : source[i];
+}
+
+/**
+ * The intake itself, in one pass over the cells without copying them: the label, the trim of
+ * leading and trailing gaps (found first, so the arrays are allocated at their final length),
+ * then each cell in order, so the first offending cell is the one named.
+ */
+function readSeries(
+  source: ArrayLike<unknown>,
+  fromColumn: boolean,
+  options: IntakeOptions,
+): Series {
+  const describe = options.describePosition ?? ((i: number) => `item ${i + 1}`);
+  let label = options.label ?? "";
+  let first = 0;
+  const head = source.length > 0 ? cellAt(source, fromColumn, 0) : undefined;
+  if (
+    options.labelFromFirstCell !== false &&
+    typeof head === "string" &&
+    head.trim() !== "" &&
+    cellErrorCode(head) === undefined
+  ) {
+    label = head.trim();
+    first = 1;
+  }
+  let last = source.length;
+  while (first < last && isGap(cellAt(source, fromColumn, first))) first++;
+  while (last > first && isGap(cellAt(source, fromColumn, last - 1))) last--;
+  if (first === last) {
+    tooShort(`the series${label ? ` "${label}"` : ""} has no values: give a range with numbers`);
+  }
+
+  const length = last - first;
+  const values = new Float64Array(length);
+  const present = new Uint8Array(length);
+  let count = 0;
+  for (let i = 0; i < length; i++) {
+    const cell = cellAt(source, fromColumn, first + i);
+    if (typeof cell === "number" && Number.isFinite(cell)) {
+      values[i] = cell;
+      present[i] = 1;
+      count++;
+    } else {
+      values[i] = gapOrRefusal(cell, first + i, describe);
+    }
+  }
+  return { values, present, label, count, gaps: length - count };
+}
+
+/** NaN for a gap cell; otherwise throws the refusal that names the cell's position. */
+function gapOrRefusal(cell: unknown, index: number, describe: PositionNamer): number {
+  if (isBlank(cell)) return NaN;
+  const code = cellErrorCode(cell);
+  if (code === "#N/A") return NaN;
+  const where = describe(index);
+  if (code !== undefined) {
+    invalid(`${where} holds the error ${code}; fix that cell or make it blank or #N/A (a gap)`);
+  }
+  if (typeof cell === "number") {
+    invalid(`${where} holds ${String(cell)}, which is not a finite number`);
+  }
+  if (typeof cell === "string") {
+    const shown = cell.length > 24 ? `${cell.slice(0, 24)}…` : cell;
+    const hint = Number.isFinite(Number(cell.trim()))
+      ? "numbers stored as text are not read; convert the cell to a number"
+      : "only numbers, blanks and #N/A (gaps) may follow the label";
+    invalid(`${where} holds the text "${shown}"; ${hint}`);
+  }
+  if (typeof cell === "boolean") {
+    invalid(`${where} holds ${cell ? "TRUE" : "FALSE"}; only numbers, blanks and #N/A are read`);
+  }
+  invalid(`${where} holds a value that is not a number; only numbers, blanks and #N/A are read`);
 }
