@@ -38,6 +38,14 @@ export interface VerdictInput {
   readonly falseAlarm: FalseAlarmNote;
   /** "squares" when the lags are those of the squared deviations (volatility clustering). */
   readonly subject?: "series" | "squares";
+  /**
+   * The first lag judged, h for h-step-ahead forecast errors (default 1): lags below it are
+   * expected to be non-zero, so they are shown but neither judged nor counted; lag h then plays
+   * the part of lag 1.
+   */
+  readonly firstLag?: number;
+  /** The joint test's name in the reason, when it is not the test kind's own. */
+  readonly testName?: string;
 }
 
 export interface Verdict {
@@ -72,17 +80,19 @@ export function falseAlarmSentence(note: FalseAlarmNote, alpha: number): string 
 
 export function judge(input: VerdictInput): Verdict {
   const { n, maxLag, alpha, joint, falseAlarm, lags } = input;
-  const seasonal = seasonalLags(input.season, maxLag);
+  const firstLag = input.firstLag ?? 1;
+  const seasonal = seasonalLags(input.season, maxLag).filter((lag) => lag >= firstLag);
   const beyondLag = (lag: number) => lags[lag - 1]?.beyond === true;
   const triggers = {
     jointRejects: joint.p < alpha,
-    outerLags: lags.filter((l) => l.outer).map((l) => l.lag),
-    lagOne: beyondLag(1),
+    outerLags: lags.filter((l) => l.outer && l.lag >= firstLag).map((l) => l.lag),
+    lagOne: beyondLag(firstLag),
     seasonalLags: seasonal.filter(beyondLag),
     excessCrossings: falseAlarm.beyond > 0 && falseAlarm.chance < alpha,
   };
   const note = falseAlarmSentence(falseAlarm, alpha);
-  const testName = TEST_NAMES[joint.test];
+  const testName = input.testName ?? TEST_NAMES[joint.test];
+  const span = firstLag === 1 ? `${maxLag} lags` : `lags ${firstLag}–${maxLag}`;
   const jointFigures = `Q = ${formatNumber(joint.q, 4)}, df ${joint.df}, p = ${formatP(joint.p)}`;
 
   if (n < MIN_VALUES_TO_JUDGE) {
@@ -109,8 +119,13 @@ export function judge(input: VerdictInput): Verdict {
   const parts: string[] = [];
   if (triggers.jointRejects || triggers.outerLags.length > 0) {
     if (triggers.jointRejects) {
-      const hypothesis = input.subject === "squares" ? "constant volatility" : "white noise";
-      parts.push(`${testName} over ${maxLag} lags rejects ${hypothesis} (${jointFigures}).`);
+      const hypothesis =
+        input.subject === "squares"
+          ? "constant volatility"
+          : firstLag === 1
+            ? "white noise"
+            : `no dependence beyond lag ${firstLag - 1}`;
+      parts.push(`${testName} over ${span} rejects ${hypothesis} (${jointFigures}).`);
     }
     if (triggers.outerLags.length > 0) {
       const shown = triggers.outerLags.slice(0, 3).map(describeLag).join(", ");
@@ -126,22 +141,22 @@ export function judge(input: VerdictInput): Verdict {
 
   if (triggers.lagOne || triggers.seasonalLags.length > 0 || triggers.excessCrossings) {
     const signs: string[] = [];
-    if (triggers.lagOne) signs.push(`${describeLag(1)} crosses its band`);
+    if (triggers.lagOne) signs.push(`${describeLag(firstLag)} crosses its band`);
     for (const lag of triggers.seasonalLags)
       signs.push(`seasonal ${describeLag(lag)} crosses its band`);
     if (triggers.excessCrossings) signs.push("more lags cross the band than chance explains");
     parts.push(
-      `${capitalise(signs.join("; "))}, though ${testName} over ${maxLag} lags does not reject (p = ${formatP(joint.p)}).`,
+      `${capitalise(signs.join("; "))}, though ${testName} over ${span} does not reject (p = ${formatP(joint.p)}).`,
     );
     return { word: "watch", reason: `${parts.join(" ")} ${note}`, triggers };
   }
 
   parts.push(
-    `No leftover structure found: ${testName} over ${maxLag} lags gives p = ${formatP(joint.p)}.`,
+    `No leftover structure found: ${testName} over ${span} gives p = ${formatP(joint.p)}.`,
   );
   if (falseAlarm.beyond === 1) {
     parts.push(
-      `${capitalise(describeLag(falseAlarm.beyondLags[0] as number))} crosses its band alone; a lone lag that is neither lag 1 nor seasonal is weak evidence.`,
+      `${capitalise(describeLag(falseAlarm.beyondLags[0] as number))} crosses its band alone; a lone lag that is neither lag ${firstLag} nor seasonal is weak evidence.`,
     );
   }
   return { word: "clear", reason: `${parts.join(" ")} ${note}`, triggers };
