@@ -128,7 +128,7 @@ function readSeries(
       values[i] = gapOrRefusal(cell, first + i, describe);
     }
   }
-  return { values, present, label, count, gaps: length - count };
+  return { values, present, label, count, gaps: length - count, start: first };
 }
 
 /** NaN for a gap cell; otherwise throws the refusal that names the cell's position. */

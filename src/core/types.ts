@@ -17,6 +17,11 @@ export interface Series {
   readonly count: number;
   /** Number of interior gaps. */
   readonly gaps: number;
+  /**
+   * Where position 0 sat in the cells read (after a label and leading gaps), so results can be
+   * placed back beside their input rows; absent for series not read from cells.
+   */
+  readonly start?: number;
 }
 
 export type BandKind = "noise" | "bartlett" | "robust";
