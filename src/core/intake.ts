@@ -128,7 +128,15 @@ function readSeries(
       values[i] = gapOrRefusal(cell, first + i, describe);
     }
   }
-  return { values, present, label, count, gaps: length - count, start: first };
+  return {
+    values,
+    present,
+    label,
+    count,
+    gaps: length - count,
+    start: first,
+    cells: source.length,
+  };
 }
 
 /** NaN for a gap cell; otherwise throws the refusal that names the cell's position. */

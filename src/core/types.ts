@@ -22,6 +22,8 @@ export interface Series {
    * placed back beside their input rows; absent for series not read from cells.
    */
   readonly start?: number;
+  /** How many cells were read (label and trimmed gaps included); absent as for `start`. */
+  readonly cells?: number;
 }
 
 export type BandKind = "noise" | "bartlett" | "robust";
