@@ -1,0 +1,95 @@
+/**
+ * The batch check: one noise check per series (the lag table's joint test and verdict), and
+ * Benjamini–Hochberg q-values across the series (Benjamini & Hochberg 1995, JRSS B 57:289–300;
+ * multiplicity.ts), so that an auditor with 200 items sees which few to look at without the
+ * five-percent false alarms of 200 separate tests.
+ *
+ * - `flaggedRaw`: series whose joint-test p is below alpha (what 200 separate checks would flag;
+ *   among pure-noise series about alpha of them);
+ * - `flaggedFdr`: series whose q-value is at most alpha (the BH step-up rule), which keeps the
+ *   expected share of false flags among the flagged at most alpha for independent series.
+ * A series that cannot be analysed (too few values, constant) keeps its row with the reason and
+ * NaN figures, and stays out of the family of p-values; when no series can be analysed, the first
+ * refusal is thrown instead. Cost: one lag table per series.
+ */
+import { invalid, isEcholotError } from "./errors";
+import { lagTable } from "./lagTable";
+import { benjaminiHochberg } from "./multiplicity";
+import { resolveAlpha, type LagOptions } from "./options";
+import type { Series, VerdictWord } from "./types";
+
+export interface BatchRow {
+  readonly label: string;
+  readonly n: number;
+  /** Joint-test statistic Q, df and p (NaN when the series could not be analysed). */
+  readonly q: number;
+  readonly df: number;
+  readonly p: number;
+  /** Benjamini–Hochberg q-value across the series analysed. */
+  readonly qValue: number;
+  /** The noise check's verdict; null when the series could not be analysed. */
+  readonly verdict: VerdictWord | null;
+  /** The verdict's reason, or why the series could not be analysed. */
+  readonly reason: string;
+}
+
+export interface BatchCheck {
+  readonly alpha: number;
+  /** One row per series, in the order given. */
+  readonly rows: readonly BatchRow[];
+  /** Series with p < alpha. */
+  readonly flaggedRaw: number;
+  /** Series with q-value ≤ alpha. */
+  readonly flaggedFdr: number;
+  /** Series with a p-value (the BH family). */
+  readonly analysed: number;
+}
+
+export function batchCheck(seriesList: readonly Series[], options: LagOptions = {}): BatchCheck {
+  if (seriesList.length < 2) {
+    invalid(
+      `a batch check needs at least 2 series (one per column); got ${seriesList.length}: for a single series use the noise check`,
+    );
+  }
+  const alpha = resolveAlpha(options.alpha);
+  let firstRefusal: unknown;
+  const partial = seriesList.map((series, index) => {
+    const label = series.label === "" ? `series ${index + 1}` : series.label;
+    try {
+      const table = lagTable(series, options);
+      const { q, df, p } = table.joint;
+      return {
+        label,
+        n: table.n,
+        q,
+        df,
+        p,
+        verdict: table.verdict.word,
+        reason: table.verdict.reason,
+      };
+    } catch (error) {
+      if (!isEcholotError(error)) throw error;
+      firstRefusal ??= error;
+      return {
+        label,
+        n: series.count,
+        q: NaN,
+        df: 0,
+        p: NaN,
+        verdict: null,
+        reason: error.message,
+      };
+    }
+  });
+  // When no series at all can be analysed the options themselves are at fault: say so once.
+  if (partial.every((row) => row.verdict === null)) throw firstRefusal;
+  const qValues = benjaminiHochberg(partial.map((row) => row.p));
+  const rows: BatchRow[] = partial.map((row, i) => ({ ...row, qValue: qValues[i] as number }));
+  return {
+    alpha,
+    rows,
+    flaggedRaw: rows.filter((row) => row.p < alpha).length,
+    flaggedFdr: rows.filter((row) => row.qValue <= alpha).length,
+    analysed: rows.filter((row) => !Number.isNaN(row.p)).length,
+  };
+}

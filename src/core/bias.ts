@@ -1,0 +1,103 @@
+/**
+ * The bias check: is the mean of a series (forecast errors, residuals) zero, allowing for the
+ * series' own dependence? The mean x̄ with the Newey–West HAC standard error
+ * (Newey & West 1987, Econometrica 55:703–708):
+ *   LRV = γ̂_0 + 2 Σ_{j=1..L} (1 − j/(L+1)) γ̂_j,   se(x̄) = √(LRV/n),   t = x̄/se,
+ * with the divide-by-n autocovariances γ̂_j of autocovariance.ts and Bartlett weights, which keep
+ * LRV ≥ 0. Two-sided p from the standard normal (the asymptotic reference of the HAC t).
+ * Default L = ⌊4(n/100)^{2/9}⌋ (from memory: the preliminary lag of Newey & West 1994, Rev. Econ.
+ * Stud. 61:631–653); `hacLags` overrides it, and L = 0 gives the plain iid standard error
+ * √(γ̂_0/n). With gaps each γ̂_j sums over the pairs present; a lag with no pair adds nothing.
+ * Cost O(n·L).
+ */
+import { autocorrelation } from "./autocovariance";
+import { normalTwoSided } from "./distributions";
+import { invalid, isEcholotError } from "./errors";
+import { requireValues, resolveAlpha } from "./options";
+import type { Series } from "./types";
+
+export interface BiasOptions {
+  /** L, the last lag given weight; default ⌊4(n/100)^{2/9}⌋. */
+  readonly hacLags?: number | null;
+  /** Level at which `flagged` is set; default 0.05. */
+  readonly alpha?: number | null;
+}
+
+export interface BiasCheck {
+  readonly label: string;
+  /** Values present. */
+  readonly n: number;
+  readonly mean: number;
+  /** LRV, the long-run variance. */
+  readonly longRunVariance: number;
+  /** √(LRV/n). */
+  readonly se: number;
+  readonly t: number;
+  /** Two-sided p of t. */
+  readonly p: number;
+  /** L. */
+  readonly hacLags: number;
+  readonly alpha: number;
+  /** The mean differs from zero at alpha. */
+  readonly flagged: boolean;
+}
+
+/** ⌊4(n/100)^{2/9}⌋, at most n − 1. */
+export function defaultHacLags(n: number): number {
+  return Math.max(0, Math.min(n - 1, Math.floor(4 * Math.pow(n / 100, 2 / 9))));
+}
+
+/** Validates L: a whole number from 0 to n − 1. */
+export function resolveHacLags(hacLags: number | null | undefined, n: number): number {
+  if (hacLags === null || hacLags === undefined) return defaultHacLags(n);
+  if (!(Number.isInteger(hacLags) && hacLags >= 0 && hacLags <= n - 1)) {
+    invalid(
+      `hacLags must be a whole number from 0 to ${n - 1}, the last lag the standard error allows for (the series has ${n} values; got ${hacLags})`,
+    );
+  }
+  return hacLags;
+}
+
+export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck {
+  requireValues(series, 3, "the bias check");
+  const n = series.count;
+  const alpha = resolveAlpha(options.alpha);
+  const L = resolveHacLags(options.hacLags, n);
+  let gamma: Float64Array;
+  let mean: number;
+  try {
+    const ac = autocorrelation(series, L);
+    gamma = ac.autocovariance;
+    mean = ac.mean;
+  } catch (error) {
+    if (!isEcholotError(error)) throw error;
+    invalid(
+      `the series${series.label ? ` "${series.label}"` : ""} is constant: its mean has no sampling error to test against`,
+    );
+  }
+  let lrv = gamma[0] as number;
+  for (let j = 1; j <= L; j++) {
+    const g = gamma[j] as number;
+    if (Number.isFinite(g)) lrv += 2 * (1 - j / (L + 1)) * g;
+  }
+  if (!(lrv > 0)) {
+    invalid(
+      `the long-run variance of the series${series.label ? ` "${series.label}"` : ""} is 0 with hacLags ${L}; choose a smaller hacLags`,
+    );
+  }
+  const se = Math.sqrt(lrv / n);
+  const t = mean / se;
+  const p = normalTwoSided(t);
+  return {
+    label: series.label,
+    n,
+    mean,
+    longRunVariance: lrv,
+    se,
+    t,
+    p,
+    hacLags: L,
+    alpha,
+    flagged: p < alpha,
+  };
+}

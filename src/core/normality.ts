@@ -1,0 +1,48 @@
+/**
+ * Normality of the values by Jarque & Bera (1980, Econ. Letters 6:255–259; 1987, Int. Stat. Rev.
+ * 55:163–172): with central moments m_j = Σ d^j / n (divide-by-n, about the mean),
+ *   S = m₃ / m₂^{3/2},   K = m₄ / m₂²,   JB = (n/6)(S² + (K − 3)²/4),
+ * referred to χ²₂, whose upper tail is exactly e^{−JB/2}. The order of the values does not matter,
+ * so gaps are simply absent values. Moments from the two-pass deviations (centre.ts) with
+ * compensated sums. Cost O(n).
+ */
+import { centre } from "./centre";
+import { chiSquareUpperTail } from "./distributions";
+import { invalid } from "./errors";
+import { requireValues } from "./options";
+import { CompensatedSum } from "./sums";
+import type { Series } from "./types";
+
+export interface NormalityCheck {
+  readonly label: string;
+  /** Values present. */
+  readonly n: number;
+  readonly skewness: number;
+  /** Kurtosis m₄/m₂² (3 for the normal, not the excess). */
+  readonly kurtosis: number;
+  readonly jb: number;
+  readonly p: number;
+}
+
+export function normalityCheck(series: Series): NormalityCheck {
+  requireValues(series, 3, "the Jarque–Bera test");
+  const { n, deviations, sumSquares } = centre(series);
+  if (!(sumSquares > 0)) {
+    invalid(
+      `the series${series.label ? ` "${series.label}"` : ""} is constant: its skewness and kurtosis are undefined`,
+    );
+  }
+  const third = new CompensatedSum();
+  const fourth = new CompensatedSum();
+  for (let t = 0; t < deviations.length; t++) {
+    const d = deviations[t] as number;
+    const d2 = d * d;
+    third.add(d2 * d);
+    fourth.add(d2 * d2);
+  }
+  const m2 = sumSquares / n;
+  const skewness = third.value / n / Math.pow(m2, 1.5);
+  const kurtosis = fourth.value / n / (m2 * m2);
+  const jb = (n / 6) * (skewness * skewness + (kurtosis - 3) ** 2 / 4);
+  return { label: series.label, n, skewness, kurtosis, jb, p: chiSquareUpperTail(jb, 2) };
+}

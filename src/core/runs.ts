@@ -1,0 +1,85 @@
+/**
+ * Runs about the median (Wald & Wolfowitz 1940, Ann. Math. Stat. 11:147–162; NIST/SEMATECH
+ * e-Handbook §1.3.5.13): too few runs of values on one side of the median means the series
+ * wanders (positive dependence, a drifting level); too many means it alternates.
+ *
+ * With n₁ values above and n₂ below and R runs,
+ *   R̄ = 2n₁n₂/(n₁+n₂) + 1,   s_R² = 2n₁n₂(2n₁n₂ − n₁ − n₂) / ((n₁+n₂)²(n₁+n₂−1)),
+ *   Z = (R − R̄)/s_R, two-sided p from the standard normal (the large-sample reference).
+ * Values equal to the median belong to neither side and are left out (common practice (no
+ * source)). Runs follow the values present in time order: a gap neither ends nor starts a run.
+ * Cost O(n log n) for the median.
+ */
+import { normalTwoSided } from "./distributions";
+import { invalid } from "./errors";
+import { requireValues } from "./options";
+import type { Series } from "./types";
+
+export interface RunsCount {
+  /** Values above (n₁) and below (n₂). */
+  readonly above: number;
+  readonly below: number;
+  readonly runs: number;
+  readonly expected: number;
+  readonly sd: number;
+  readonly z: number;
+  /** Two-sided p. */
+  readonly p: number;
+}
+
+export interface RunsCheck extends RunsCount {
+  readonly label: string;
+  /** Values present. */
+  readonly n: number;
+  readonly median: number;
+}
+
+/**
+ * The runs test of a two-valued sequence in order: `sides[i]` is true for one kind (above the
+ * median, heads) and false for the other.
+ */
+export function runsTest(sides: readonly boolean[]): RunsCount {
+  let above = 0;
+  let runs = 0;
+  for (let i = 0; i < sides.length; i++) {
+    if (sides[i]) above++;
+    if (i === 0 || sides[i] !== sides[i - 1]) runs++;
+  }
+  const below = sides.length - above;
+  if (above === 0 || below === 0) {
+    invalid(
+      `a runs test needs values of both kinds; all ${sides.length} are on one side of the median`,
+    );
+  }
+  const total = above + below;
+  const product = 2 * above * below;
+  const expected = product / total + 1;
+  const variance = (product * (product - total)) / (total * total * (total - 1));
+  const sd = Math.sqrt(variance);
+  const z = (runs - expected) / sd;
+  return { above, below, runs, expected, sd, z, p: normalTwoSided(z) };
+}
+
+export function runsCheck(series: Series): RunsCheck {
+  requireValues(series, 3, "a runs test");
+  const { values, present } = series;
+  const sorted: number[] = [];
+  for (let t = 0; t < values.length; t++) if (present[t] === 1) sorted.push(values[t] as number);
+  sorted.sort((a, b) => a - b);
+  const middle = sorted.length >> 1;
+  const median =
+    sorted.length % 2 === 1
+      ? (sorted[middle] as number)
+      : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
+  const sides: boolean[] = [];
+  for (let t = 0; t < values.length; t++) {
+    const x = values[t] as number;
+    if (present[t] === 1 && x !== median) sides.push(x > median);
+  }
+  if (sides.length < 2 || sides.every((s) => s === sides[0])) {
+    invalid(
+      `the series${series.label ? ` "${series.label}"` : ""} has values on only one side of its median ${median} (the others equal it), so its runs cannot be counted`,
+    );
+  }
+  return { label: series.label, n: series.count, median, ...runsTest(sides) };
+}

@@ -1,0 +1,146 @@
+/**
+ * The volatility check: is the size of the deviations predictable from their recent size
+ * (volatility clustering, ARCH effects)? Two tests of the squared deviations s_t = (x_t − x̄)²,
+ * reported together:
+ *
+ * - Engle's LM test (Engle 1982, Econometrica 50:987–1007): regress s_t on a constant and
+ *   s_{t−1}, …, s_{t−q} by least squares over the usable rows and take LM = T·R², referred to χ²_q.
+ *   T is the number of rows used, n − q for a series without gaps (some texts use n instead;
+ *   Echolot uses T, the rows actually in the regression). With gaps a row is usable only when
+ *   s_t and all q lagged squares exist, so T can be smaller. R² is the explained over the total
+ *   sum of squares about the mean, both taken from the QR rotation (leastSquares.ts).
+ * - McLeod–Li (McLeod & Li 1983, J. Time Ser. Anal. 4:269–273): Ljung–Box on the squared
+ *   deviations over the same q lags — the lag table's testKind "squares" (squares.ts and
+ *   portmanteau.ts compute it; nothing is repeated here).
+ * Default q is the lag table's default, min(10, ⌊n/5⌋), so this check and the squared-deviations
+ * view agree. Cost O(n·q²) for the regression.
+ */
+import { centre } from "./centre";
+import { defaultMaxLag } from "./defaultLags";
+import { chiSquareUpperTail } from "./distributions";
+import { invalid, isEcholotError, tooShort } from "./errors";
+import { leastSquares } from "./leastSquares";
+import { resolveAlpha, resolveLagCount, requireValues } from "./options";
+import { cumulativeJointTest, jointTestAt } from "./portmanteau";
+import { squaredDeviationCorrelation } from "./squares";
+import { CompensatedSum } from "./sums";
+import type { Series } from "./types";
+
+export interface VolatilityOptions {
+  /** q, the number of lagged squares; default min(10, ⌊n/5⌋). */
+  readonly lags?: number | null;
+  /** Level at which `flagged` is set; default 0.05. */
+  readonly alpha?: number | null;
+}
+
+export interface VolatilityCheck {
+  readonly label: string;
+  /** Values present. */
+  readonly n: number;
+  /** q. */
+  readonly lags: number;
+  readonly alpha: number;
+  /** T, the regression rows used (n − q without gaps). */
+  readonly rows: number;
+  readonly rSquared: number;
+  /** Engle's LM = T·R². */
+  readonly lm: number;
+  readonly df: number;
+  readonly p: number;
+  /** McLeod–Li Q over q lags and its p (χ²_q). */
+  readonly mcleodLiQ: number;
+  readonly mcleodLiP: number;
+  /** Engle's LM rejects constant volatility at alpha. */
+  readonly flagged: boolean;
+}
+
+export function volatilityCheck(series: Series, options: VolatilityOptions = {}): VolatilityCheck {
+  requireValues(series, 3, "the volatility check");
+  const n = series.count;
+  const alpha = resolveAlpha(options.alpha);
+  const q =
+    options.lags === null || options.lags === undefined
+      ? defaultMaxLag(n, null)
+      : resolveLagCount("lags", options.lags, n);
+  const { rows, rSquared } = engleRegression(series, q);
+  const lm = rows * rSquared;
+  const p = chiSquareUpperTail(lm, q);
+
+  const squares = squaredDeviationCorrelation(series, q);
+  const mcleodLi = jointTestAt(
+    "squares",
+    cumulativeJointTest({
+      kind: "squares",
+      n: squares.n,
+      correlation: squares.correlation,
+      fittedParams: 0,
+    }),
+  );
+  return {
+    label: series.label,
+    n,
+    lags: q,
+    alpha,
+    rows,
+    rSquared,
+    lm,
+    df: q,
+    p,
+    mcleodLiQ: mcleodLi.q,
+    mcleodLiP: mcleodLi.p,
+    flagged: p < alpha,
+  };
+}
+
+/** The LM regression of s_t on 1, s_{t−1..t−q}: its usable rows T and R². */
+function engleRegression(series: Series, q: number): { rows: number; rSquared: number } {
+  const { deviations } = centre(series);
+  const { present } = series;
+  const length = present.length;
+  const usable: number[] = [];
+  for (let t = q; t < length; t++) {
+    let complete = true;
+    for (let j = 0; j <= q && complete; j++) complete = present[t - j] === 1;
+    if (complete) usable.push(t);
+  }
+  const rows = usable.length;
+  const columns = q + 1;
+  if (rows < columns + 1) {
+    tooShort(
+      `Engle's LM test with ${q} lag${q === 1 ? "" : "s"} needs at least ${columns + 1} rows with the value and its ${q} predecessors present; the series has ${rows}: use fewer lags`,
+    );
+  }
+  const design = new Float64Array(rows * columns);
+  const response = new Float64Array(rows);
+  usable.forEach((t, i) => {
+    const d = deviations[t] as number;
+    response[i] = d * d;
+    design[i] = 1;
+    for (let j = 1; j <= q; j++) {
+      const lagged = deviations[t - j] as number;
+      design[j * rows + i] = lagged * lagged;
+    }
+  });
+  let rotated: Float64Array;
+  try {
+    rotated = leastSquares(design, rows, columns, response).rotatedResponse;
+  } catch (error) {
+    if (!isEcholotError(error)) throw error;
+    invalid(
+      `the squared deviations of the series${series.label ? ` "${series.label}"` : ""} do not vary enough over the usable rows for Engle's LM test (they are constant or repeat exactly); use fewer lags or check the data`,
+    );
+  }
+  const explained = new CompensatedSum();
+  const total = new CompensatedSum();
+  for (let i = 1; i < rows; i++) {
+    const c2 = (rotated[i] as number) ** 2;
+    total.add(c2);
+    if (i < columns) explained.add(c2);
+  }
+  if (!(total.value > 0)) {
+    invalid(
+      `the squared deviations of the series${series.label ? ` "${series.label}"` : ""} are constant, so their dependence is undefined`,
+    );
+  }
+  return { rows, rSquared: explained.value / total.value };
+}
