@@ -107,6 +107,9 @@ module.exports = async (env, argv) => {
       path: path.resolve(__dirname, "dist"),
       filename: "[name].js",
       clean: true,
+      // Write every file on every build, so a file's time says when it was built (the tests
+      // refuse a bundle older than its sources).
+      compareBeforeEmit: false,
     },
     resolve: { extensions: [".ts", ".js"] },
     module: {
@@ -134,6 +137,8 @@ module.exports = async (env, argv) => {
       new CopyWebpackPlugin({ patterns: copyPatterns(useCdn) }),
     ],
     performance: { hints: false },
+    // While serving, keep the console to the load instructions and real problems.
+    stats: serving ? "errors-warnings" : "normal",
     watchOptions: { ignored: ["**/node_modules/**", "**/dist/**", "**/build/**", "**/.git/**"] },
     ...(serving ? { devServer: await devServer() } : {}),
   };

@@ -5,7 +5,7 @@
  * `associate`. `invoke` then calls a function the way the host does — every declared parameter
  * passed, omitted optional ones as `null` — and returns the spilled array or the error value.
  */
-import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
+import { existsSync, readFileSync, statSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { createContext, runInContext } from "node:vm";
@@ -20,18 +20,21 @@ export function distFile(name: string): string {
   return path;
 }
 
-/** Sources the functions bundle is built from (the core it calls and the functions). */
-const BUNDLE_SOURCES = ["src/core", "functions"].map((dir) => join(DIST, "..", dir));
-
-/** Refuses a bundle older than its sources: comparing it with the core would mislead. */
+/**
+ * Refuses a bundle older than any project source it contains (listed in its source map):
+ * comparing a stale bundle with the current core would mislead.
+ */
 function requireFreshBundle(bundle: string): void {
   const built = statSync(bundle).mtimeMs;
-  for (const dir of BUNDLE_SOURCES) {
-    for (const name of readdirSync(dir)) {
-      const file = join(dir, name);
-      if (name.endsWith(".ts") && statSync(file).mtimeMs > built) {
-        throw new Error(`${bundle} is older than ${file}: run "npm run build" first`);
-      }
+  const map = JSON.parse(readFileSync(distFile("functions.js.map"), "utf8")) as {
+    sources: string[];
+  };
+  for (const source of map.sources) {
+    const local = /^webpack:\/\/[^/]*\/\.\/((?:src|functions)\/.+\.ts)$/.exec(source)?.[1];
+    if (local === undefined) continue;
+    const file = join(DIST, "..", local);
+    if (!existsSync(file) || statSync(file).mtimeMs > built) {
+      throw new Error(`${bundle} is older than ${file}: run "npm run build" first`);
     }
   }
 }
