@@ -3,6 +3,7 @@
  * Shapes and Okabe–Ito colours as DESIGN.md assigns them.
  */
 import type { VerdictWord } from "../core";
+import { PALETTE } from "./palette";
 
 export interface Badge {
   readonly word: VerdictWord;
@@ -11,10 +12,10 @@ export interface Badge {
 }
 
 export const BADGES: Readonly<Record<VerdictWord, Badge>> = {
-  clear: { word: "clear", shape: "●", colour: "#0072B2" },
-  watch: { word: "watch", shape: "▲", colour: "#E69F00" },
-  structure: { word: "structure", shape: "■", colour: "#D55E00" },
-  short: { word: "short", shape: "◌", colour: "#56636F" },
+  clear: { word: "clear", shape: "●", colour: PALETTE.clear },
+  watch: { word: "watch", shape: "▲", colour: PALETTE.watch },
+  structure: { word: "structure", shape: "■", colour: PALETTE.structure },
+  short: { word: "short", shape: "◌", colour: PALETTE.inside },
 };
 
 export const SCREENING_CAUTION =

@@ -1,0 +1,331 @@
+/**
+ * The evidence chart as an SVG string: lags 1..K along the bottom, each lag's standardised value
+ * as a diamond, between two nested flat corridors — the inner one at ±z_{1−α/2} (one lag on its
+ * own) and the outer one at the Šidák level for all K lags together. Diamond colours say which
+ * corridor holds each lag; the seasonal lags m and 2m sit in tinted, tagged columns; values beyond
+ * the pin limit (±6, or just past the outer corridor if that is wider) sit at the edge under an
+ * arrowhead. No stems, no bars from zero, no dashed lines: the two corridors carry the message.
+ *
+ * Pure: a function from a lag table to a string. Coordinates are rounded to 0.1 px and every text
+ * and attribute is escaped, so equal input gives byte-equal output.
+ */
+import { scaleBand, scaleLinear } from "d3-scale";
+import { seasonalLags, type LagTable } from "../core";
+import { lagPoints, VIEW_QUANTITIES, type ChartView, type LagPoint } from "./lagViews";
+import { PALETTE, ZONE_COLOURS, ZONE_WORDS } from "./palette";
+import { element, figure, px, signed, textElement } from "./svg";
+
+/** Standardised values beyond this are pinned to the edge (DESIGN.md). */
+export const PIN_LIMIT = 6;
+
+export interface EvidenceChartOptions {
+  /** Which values to draw; default "squares" for a squares table, else "correlation". */
+  readonly view?: ChartView;
+  readonly width?: number;
+  readonly height?: number;
+  /** Prefix of the element ids (title, description), unique within the page. */
+  readonly idPrefix?: string;
+}
+
+/** The pixel frame of the plot, shared with the joint-test ribbon so its cells line up. */
+export interface LagFrame {
+  readonly width: number;
+  readonly left: number;
+  readonly right: number;
+}
+
+const MARGIN = { top: 22, right: 10, bottom: 44, left: 34 };
+
+export function lagFrame(width: number): LagFrame {
+  return { width, left: MARGIN.left, right: width - MARGIN.right };
+}
+
+/** x positions of the lag columns (d3 band scale over 1..K, no padding: columns touch). */
+export function lagColumns(maxLag: number, frame: LagFrame) {
+  const lags = Array.from({ length: maxLag }, (_, i) => i + 1);
+  return scaleBand<number>().domain(lags).range([frame.left, frame.right]).padding(0);
+}
+
+/** The half-height of the y domain: room for the corridors and the largest |z| up to the pin. */
+export function yLimit(points: readonly LagPoint[], outerLevel: number): number {
+  let largest = 0;
+  for (const p of points) if (Number.isFinite(p.z)) largest = Math.max(largest, Math.abs(p.z));
+  const pin = pinLimit(outerLevel);
+  return Math.min(pin, Math.max(outerLevel * 1.2, largest * 1.1));
+}
+
+/** ±6, unless the outer corridor itself reaches that far (a very small alpha). */
+export function pinLimit(outerLevel: number): number {
+  return Math.max(PIN_LIMIT, outerLevel * 1.1);
+}
+
+/** Lag ticks: every lag up to 12 lags, otherwise whole-number ticks from d3. */
+function lagTicks(maxLag: number): number[] {
+  if (maxLag <= 12) return Array.from({ length: maxLag }, (_, i) => i + 1);
+  return scaleLinear()
+    .domain([1, maxLag])
+    .ticks(Math.min(8, Math.floor(maxLag / 2)))
+    .filter((t) => Number.isInteger(t) && t >= 1);
+}
+
+function defaultView(table: LagTable): ChartView {
+  return table.subject === "squares" ? "squares" : "correlation";
+}
+
+/** One sentence per fact, for the chart's <desc> and the pane's aria description. */
+export function chartDescription(table: LagTable, view: ChartView = defaultView(table)): string {
+  const points = lagPoints(table, view);
+  const count = (zone: string) => points.filter((p) => p.zone === zone).map((p) => p.lag);
+  const between = count("between");
+  const beyond = count("beyond");
+  const pin = pinLimit(table.outerLevel);
+  const pinned = points.filter((p) => Math.abs(p.z) > pin).map((p) => p.lag);
+  const list = (lags: number[]) => (lags.length === 0 ? "none" : lags.join(", "));
+  const name = table.label === "" ? "the series" : `“${table.label}”`;
+  const parts = [
+    `Evidence chart of the ${VIEW_QUANTITIES[view]} of ${name} at lags 1 to ${table.maxLag}, as standardised values z.`,
+    `One-lag corridor ±${figure(table.innerLevel, 3)}; all-lags corridor ±${figure(table.outerLevel, 3)} for ${table.maxLag} lags together.`,
+    `Lags between the corridors: ${list(between)}.`,
+    `Lags beyond the all-lags corridor: ${list(beyond)}.`,
+  ];
+  const seasonal = seasonalLags(table.season, table.maxLag);
+  if (seasonal.length > 0) parts.push(`Seasonal lags marked: ${seasonal.join(", ")}.`);
+  if (pinned.length > 0)
+    parts.push(`Beyond ±${figure(pin, 3)} and pinned to the edge: ${list(pinned)}.`);
+  return parts.join(" ");
+}
+
+function diamond(x: number, y: number, size: number): string {
+  return `M${px(x)},${px(y - size)}L${px(x + size)},${px(y)}L${px(x)},${px(y + size)}L${px(x - size)},${px(y)}Z`;
+}
+
+/** An arrowhead pointing away from the plot, its base just beyond the pinned diamond. */
+function arrowhead(x: number, y: number, size: number, up: boolean): string {
+  const dir = up ? -1 : 1;
+  const base = y + dir * (size + 1.5);
+  const tip = base + dir * 5;
+  return `M${px(x - 3.5)},${px(base)}L${px(x + 3.5)},${px(base)}L${px(x)},${px(tip)}Z`;
+}
+
+export function evidenceChartSvg(table: LagTable, options: EvidenceChartOptions = {}): string {
+  const view = options.view ?? defaultView(table);
+  const width = options.width ?? 320;
+  const height = options.height ?? 220;
+  const id = options.idPrefix ?? "echolot-evidence";
+  const points = lagPoints(table, view);
+  const K = table.maxLag;
+  const frame = lagFrame(width);
+  const top = MARGIN.top;
+  const bottom = height - MARGIN.bottom;
+  const limit = yLimit(points, table.outerLevel);
+  const x = lagColumns(K, frame);
+  const y = scaleLinear().domain([-limit, limit]).range([bottom, top]);
+  const columnWidth = x.bandwidth();
+  const centre = (lag: number) => (x(lag) ?? frame.left) + columnWidth / 2;
+  const size = Math.max(2.5, Math.min(5.5, columnWidth * 0.36));
+
+  const parts: string[] = [];
+  const title = `${VIEW_QUANTITIES[view]} by lag, standardised`;
+  parts.push(textElement("title", { id: `${id}-title` }, title));
+  parts.push(textElement("desc", { id: `${id}-desc` }, chartDescription(table, view)));
+
+  // Corridors: the outer one first, the inner one on top of it (nested, flat, filled).
+  const corridor = (level: number, fill: string, name: string) =>
+    element(
+      "rect",
+      {
+        class: `corridor ${name}`,
+        x: px(frame.left),
+        y: px(y(level)),
+        width: px(frame.right - frame.left),
+        height: px(y(-level) - y(level)),
+        fill,
+        "data-level": figure(level),
+      },
+      textElement(
+        "title",
+        {},
+        name === "outer"
+          ? `all-lags corridor ±${figure(level, 3)}: holds for all ${K} lags together (Šidák)`
+          : `one-lag corridor ±${figure(level, 3)}: one lag on its own at alpha ${figure(table.alpha, 3)}`,
+      ),
+    );
+  const outerShown = Math.min(table.outerLevel, limit);
+  parts.push(corridor(outerShown, PALETTE.outerCorridor, "outer"));
+  parts.push(corridor(Math.min(table.innerLevel, limit), PALETTE.innerCorridor, "inner"));
+
+  // Seasonal columns over the corridors, lightly, with a tag above the plot.
+  const seasonal = seasonalLags(table.season, K);
+  seasonal.forEach((lag, i) => {
+    const tag = i === 0 ? "m" : "2m";
+    parts.push(
+      element(
+        "rect",
+        {
+          class: "season",
+          x: px(x(lag) ?? 0),
+          y: px(top),
+          width: px(columnWidth),
+          height: px(bottom - top),
+          fill: PALETTE.seasonalTint,
+          "fill-opacity": "0.75",
+          "data-lag": lag,
+        },
+        textElement("title", {}, `seasonal lag ${lag} (${tag}, season ${table.season})`),
+      ),
+    );
+    parts.push(
+      textElement(
+        "text",
+        {
+          class: "season-tag",
+          x: px(centre(lag)),
+          y: px(top - 6),
+          "text-anchor": "middle",
+          "font-size": 9,
+          fill: PALETTE.muted,
+          "data-lag": lag,
+        },
+        tag,
+      ),
+    );
+  });
+
+  // y ticks (d3) as labels with short tick marks; no grid, no zero line.
+  const yTicks = y.ticks(5);
+  const yFormat = y.tickFormat(5);
+  for (const t of yTicks) {
+    parts.push(
+      element("line", {
+        class: "tick",
+        x1: px(frame.left - 4),
+        x2: px(frame.left),
+        y1: px(y(t)),
+        y2: px(y(t)),
+        stroke: PALETTE.muted,
+        "stroke-width": 1,
+      }),
+    );
+    parts.push(
+      textElement(
+        "text",
+        {
+          class: "tick-label",
+          x: px(frame.left - 6),
+          y: px(y(t) + 3),
+          "text-anchor": "end",
+          "font-size": 9,
+          fill: PALETTE.ink,
+        },
+        yFormat(t),
+      ),
+    );
+  }
+  parts.push(
+    textElement(
+      "text",
+      { class: "axis-title", x: px(4), y: px(top - 8), "font-size": 9, fill: PALETTE.muted },
+      "z",
+    ),
+  );
+
+  // x ticks.
+  for (const t of lagTicks(K)) {
+    parts.push(
+      textElement(
+        "text",
+        {
+          class: "tick-label",
+          x: px(centre(t)),
+          y: px(bottom + 14),
+          "text-anchor": "middle",
+          "font-size": 9,
+          fill: PALETTE.ink,
+        },
+        String(t),
+      ),
+    );
+  }
+  parts.push(
+    textElement(
+      "text",
+      {
+        class: "axis-title",
+        x: px(frame.right),
+        y: px(bottom + 26),
+        "text-anchor": "end",
+        "font-size": 9,
+        fill: PALETTE.muted,
+      },
+      "lag",
+    ),
+  );
+
+  // The diamonds, one per lag with a defined value.
+  const pin = pinLimit(table.outerLevel);
+  for (const p of points) {
+    if (p.zone === "none") continue;
+    const pinned = Math.abs(p.z) > pin;
+    const shownZ = pinned ? Math.sign(p.z) * limit : p.z;
+    const cx = centre(p.lag);
+    const cy = y(shownZ);
+    const label = `lag ${p.lag}: ${VIEW_QUANTITIES[view]} ${signed(p.value)}, z = ${signed(p.z)}, ${ZONE_WORDS[p.zone]}${pinned ? `; beyond ±${figure(pin, 3)}, pinned to the edge` : ""}`;
+    parts.push(
+      element(
+        "path",
+        {
+          class: `lag ${p.zone}${pinned ? " pinned" : ""}`,
+          d: diamond(cx, cy, size),
+          fill: ZONE_COLOURS[p.zone],
+          stroke: "#FFFFFF",
+          "stroke-width": 0.8,
+          "data-lag": p.lag,
+          "data-z": figure(p.z),
+        },
+        textElement("title", {}, label),
+      ),
+    );
+    if (pinned) {
+      parts.push(
+        element("path", {
+          class: "arrowhead",
+          d: arrowhead(cx, cy, size, p.z > 0),
+          fill: ZONE_COLOURS[p.zone],
+          "data-lag": p.lag,
+        }),
+      );
+    }
+  }
+
+  // The corridors' key, under the axis: the numbers behind the two levels.
+  parts.push(
+    textElement(
+      "text",
+      {
+        class: "key",
+        x: px(frame.left),
+        y: px(height - 4),
+        "font-size": 9,
+        fill: PALETTE.muted,
+      },
+      `corridors: one lag ±${figure(table.innerLevel, 3)} · all ${K} lags ±${figure(table.outerLevel, 3)}`,
+    ),
+  );
+
+  return element(
+    "svg",
+    {
+      xmlns: "http://www.w3.org/2000/svg",
+      class: `evidence-chart view-${view}`,
+      width,
+      height,
+      viewBox: `0 0 ${width} ${height}`,
+      role: "img",
+      "aria-labelledby": `${id}-title ${id}-desc`,
+      "font-family": "system-ui, sans-serif",
+      "data-inner": figure(table.innerLevel),
+      "data-outer": figure(table.outerLevel),
+    },
+    parts.join(""),
+  );
+}

@@ -1,0 +1,213 @@
+/**
+ * The verdict explained, as structured text the pane, the HTML report and the summary all show:
+ * the verdict and its reason, the false-alarm note with its numbers, then the cautions that apply
+ * — seasonality, gaps, a small sample, volatility clustering, bias — and always the screening
+ * caution. Every figure comes from the core's lag table (or the optional extra checks); this file
+ * only words them.
+ */
+import {
+  falseAlarmSentence,
+  formatLagList,
+  formatNumber,
+  formatP,
+  seasonalLags,
+  TEST_NAMES,
+  type LagTable,
+  type VerdictWord,
+} from "../core";
+import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
+
+export type ExplanationTopic =
+  | "verdict"
+  | "false-alarms"
+  | "season"
+  | "gaps"
+  | "small-sample"
+  | "volatility"
+  | "bias"
+  | "screening";
+
+export interface ExplanationItem {
+  readonly topic: ExplanationTopic;
+  readonly heading: string;
+  readonly text: string;
+}
+
+export interface FalseAlarmFigures {
+  /** Lags tested (with a defined value). */
+  readonly tested: number;
+  /** Crossings of the one-lag band expected by chance, K·α. */
+  readonly expected: number;
+  /** Crossings seen. */
+  readonly seen: number;
+  readonly lags: readonly number[];
+  /** Chance that pure noise crosses at least `seen` times (binomial upper tail). */
+  readonly chance: number;
+}
+
+export interface Explanation {
+  readonly word: VerdictWord;
+  readonly shape: string;
+  readonly colour: string;
+  readonly label: string;
+  /** The verdict's reason sentence, as the core wrote it (it ends with the false-alarm note). */
+  readonly reason: string;
+  readonly falseAlarm: FalseAlarmFigures;
+  readonly items: readonly ExplanationItem[];
+}
+
+/** A flagged side check (volatility or bias) worded by its caller, with its own figures. */
+export interface SideFinding {
+  readonly flagged: boolean;
+  readonly text: string;
+}
+
+export interface ExplainContext {
+  /** The lag table of the squared deviations (testKind "squares"), for the volatility caution. */
+  readonly squares?: LagTable;
+  /** Extra volatility finding (e.g. Engle's LM test), shown when it flags. */
+  readonly volatility?: SideFinding;
+  /** Bias finding (mean error with a HAC standard error), shown when it flags. */
+  readonly bias?: SideFinding;
+}
+
+/** Below this many values the bands are wide and a clear verdict has little power. Common practice (no source). */
+export const SMALL_SAMPLE = 50;
+
+export function explainVerdict(table: LagTable, context: ExplainContext = {}): Explanation {
+  const { verdict, falseAlarm, alpha } = table;
+  const badge = BADGES[verdict.word];
+  const note = falseAlarmSentence(falseAlarm, alpha);
+  const items: ExplanationItem[] = [];
+
+  const reasonOnly = verdict.reason.endsWith(note)
+    ? verdict.reason.slice(0, verdict.reason.length - note.length).trim()
+    : verdict.reason;
+  items.push({ topic: "verdict", heading: `${badge.shape} ${badge.word}`, text: reasonOnly });
+  items.push({ topic: "false-alarms", heading: "False alarms", text: falseAlarmText(table, note) });
+
+  const season = seasonText(table);
+  if (season !== undefined) items.push({ topic: "season", heading: "Season", text: season });
+  if (table.gaps > 0) items.push({ topic: "gaps", heading: "Gaps", text: gapsText(table) });
+  const small = smallSampleText(table);
+  if (small !== undefined)
+    items.push({ topic: "small-sample", heading: "Sample size", text: small });
+  const volatility = volatilityText(table, context);
+  if (volatility !== undefined) {
+    items.push({ topic: "volatility", heading: "Volatility", text: volatility });
+  }
+  if (context.bias?.flagged === true) {
+    items.push({ topic: "bias", heading: "Bias", text: context.bias.text });
+  }
+  items.push({ topic: "screening", heading: "A screen, not a decision", text: SCREENING_CAUTION });
+
+  return {
+    word: verdict.word,
+    shape: badge.shape,
+    colour: badge.colour,
+    label: table.label,
+    reason: verdict.reason,
+    falseAlarm: {
+      tested: falseAlarm.tested,
+      expected: falseAlarm.expected,
+      seen: falseAlarm.beyond,
+      lags: falseAlarm.beyondLags,
+      chance: falseAlarm.chance,
+    },
+    items,
+  };
+}
+
+function falseAlarmText(table: LagTable, note: string): string {
+  const outer = table.rows.filter((r) => r.outer).map((r) => r.lag);
+  const corridor = `In the chart the inner corridor (±${formatNumber(table.innerLevel, 3)}) judges one lag on its own; the outer one (±${formatNumber(table.outerLevel, 3)}) holds for all ${table.maxLag} lags together`;
+  const beyond =
+    outer.length === 0
+      ? "no lag lies beyond it."
+      : `${formatLagList(outer)} ${outer.length === 1 ? "lies" : "lie"} beyond it and ${outer.length === 1 ? "survives" : "survive"} the multiple-lag correction.`;
+  return `${note} ${corridor}: ${beyond}`;
+}
+
+function seasonText(table: LagTable): string | undefined {
+  if (table.season === null) {
+    if (table.subject === "squares") return undefined;
+    return "No season set. If the data have a cycle (12 for monthly, 13 or 52 for weekly, 7 for daily), set it so lags m and 2m are watched.";
+  }
+  const m = table.season;
+  const watched = seasonalLags(m, table.maxLag);
+  const parts = [`Season m = ${m}: lags ${m} and ${2 * m} are watched.`];
+  if (watched.length < 2) {
+    parts.push(
+      `Lag ${watched.length === 0 ? m : 2 * m} is beyond the ${table.maxLag} lags tested.`,
+    );
+  }
+  for (const lag of watched) {
+    const row = table.rows[lag - 1];
+    if (row === undefined) continue;
+    parts.push(
+      `Lag ${lag} (r = ${formatNumber(row.correlation, 3)}, z = ${formatNumber(row.z, 3)}) ${row.outer ? "lies beyond the all-lags corridor" : row.beyond ? "crosses its band" : "stays inside its band"}.`,
+    );
+  }
+  return parts.join(" ");
+}
+
+function gapsText(table: LagTable): string {
+  const gaps = `${table.gaps} gap${table.gaps === 1 ? "" : "s"}`;
+  return `${gaps} inside the series (${table.n} values over ${table.length} positions) are kept in place, so lags stay positions in time; each lag uses only the pairs where both values exist.`;
+}
+
+function smallSampleText(table: LagTable): string | undefined {
+  const parts: string[] = [];
+  if (table.n < SMALL_SAMPLE) {
+    parts.push(
+      `Only ${table.n} values: the bands are wide, so a clear verdict has little power to find weak structure.`,
+    );
+  }
+  if (table.maxLag > table.n / 5 && table.verdict.word !== "short") {
+    parts.push(
+      `${table.maxLag} lags is more than n/5 = ${formatNumber(table.n / 5, 3)}: the joint test over-rejects a little with many lags and few values.`,
+    );
+  }
+  return parts.length === 0 ? undefined : parts.join(" ");
+}
+
+function volatilityText(table: LagTable, context: ExplainContext): string | undefined {
+  const parts: string[] = [];
+  const squares = context.squares;
+  const robust = table.bandKind === "robust";
+  if (squares !== undefined && squares.joint.p < squares.alpha) {
+    const test = TEST_NAMES.squares;
+    const figures = `Q = ${formatNumber(squares.joint.q, 4)}, df ${squares.joint.df}, p = ${formatP(squares.joint.p)}`;
+    parts.push(
+      robust
+        ? `The squared deviations are correlated (${test}, ${figures}): volatility clusters. The robust bands in use allow for it.`
+        : `The squared deviations are correlated (${test}, ${figures}): volatility clusters, so plain bands are too narrow and over-alarm. Choose robust bands${table.testKind === "robust" ? "" : " and the robust joint test"} before trusting this verdict.`,
+    );
+  }
+  if (context.volatility?.flagged === true) parts.push(context.volatility.text);
+  return parts.length === 0 ? undefined : parts.join(" ");
+}
+
+/** The explanation as plain paragraphs: "heading: text", one per line. */
+export function explanationText(explanation: Explanation): string {
+  return explanation.items.map((item) => `${item.heading}: ${item.text}`).join("\n");
+}
+
+/** What "Copy summary" puts on the clipboard: the verdict and its reason, and the caution. */
+export function summaryText(table: LagTable): string {
+  const badge = BADGES[table.verdict.word];
+  const name = table.label === "" ? "Series" : table.label;
+  const options = [
+    `${table.maxLag} lags`,
+    `alpha ${table.alpha}`,
+    `${table.bandKind} bands`,
+    TEST_NAMES[table.testKind],
+    ...(table.season === null ? [] : [`season ${table.season}`]),
+    ...(table.fittedParams > 0 ? [`${table.fittedParams} fitted parameters`] : []),
+  ].join(", ");
+  return [
+    `${name} (n = ${table.n}${table.gaps > 0 ? `, ${table.gaps} gaps` : ""}; ${options}): ${badge.shape} ${badge.word}`,
+    table.verdict.reason,
+    SCREENING_CAUTION,
+  ].join("\n");
+}

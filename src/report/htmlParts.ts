@@ -1,0 +1,111 @@
+/**
+ * HTML fragments shared by the pane and the standalone HTML report: the verdict badge (word,
+ * shape and colour together), the figures table that repeats each chart as text, and the
+ * explanation. Every text is escaped; colours come from the palette as SVG presentation
+ * attributes, so the fragments need no inline style (the pane's CSP forbids it).
+ */
+import { formatP, TEST_NAMES, type LagTable, type VerdictWord } from "../core";
+import { escapeMarkup } from "./escape";
+import type { Explanation } from "./explain";
+import { lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
+import { element, figure, signed, textElement } from "./svg";
+import { BADGES } from "./verdictBadge";
+
+/** The badge's shape drawn in its colour: ● clear, ▲ watch, ■ structure, ◌ short. */
+function badgeShape(word: VerdictWord): string {
+  const { colour } = BADGES[word];
+  switch (word) {
+    case "clear":
+      return element("circle", { cx: 7, cy: 7, r: 6, fill: colour });
+    case "watch":
+      return element("path", { d: "M7,0.8L13.4,12.6L0.6,12.6Z", fill: colour });
+    case "structure":
+      return element("rect", { x: 1, y: 1, width: 12, height: 12, fill: colour });
+    case "short":
+      return element("circle", {
+        cx: 7,
+        cy: 7,
+        r: 5.5,
+        fill: "none",
+        stroke: colour,
+        "stroke-width": 1.6,
+        "stroke-dasharray": "2 1.6",
+      });
+  }
+}
+
+export function badgeHtml(word: VerdictWord): string {
+  const badge = BADGES[word];
+  const shape = element(
+    "svg",
+    { class: "badge-shape", width: 14, height: 14, viewBox: "0 0 14 14", "aria-hidden": "true" },
+    badgeShape(word),
+  );
+  return element(
+    "span",
+    { class: `badge badge-${word}`, "data-word": word, title: `verdict: ${badge.shape} ${word}` },
+    `${shape}${textElement("span", { class: "badge-word" }, word)}`,
+  );
+}
+
+const ZONE_SHORT = { inside: "inside", between: "between", beyond: "beyond", none: "no pairs" };
+
+function pCell(p: number): string {
+  return textElement("td", {}, Number.isNaN(p) ? "—" : formatP(p));
+}
+
+/** The chart's figures as a table: the text alternative that sits under each chart. */
+export function figuresTableHtml(table: LagTable, view: ChartView): string {
+  const points = lagPoints(table, view);
+  const withTests = view !== "partial";
+  const headers = [
+    "lag",
+    view === "partial" ? "partial" : "r",
+    "z",
+    ...(withTests ? ["p (this lag)", `p (all ${table.maxLag} lags)`, "p (joint, lags 1…k)"] : []),
+    "corridor",
+  ];
+  const head = element(
+    "tr",
+    {},
+    headers.map((h) => textElement("th", { scope: "col" }, h)).join(""),
+  );
+  const body = points
+    .map((p, i) => {
+      const row = table.rows[i];
+      const cells = [
+        textElement("th", { scope: "row" }, String(p.lag)),
+        textElement("td", {}, signed(p.value, 4)),
+        textElement("td", {}, signed(p.z, 3)),
+        ...(withTests && row !== undefined
+          ? [pCell(row.pLag), pCell(row.pSidak), pCell(row.jointP)]
+          : []),
+        textElement("td", { class: `zone-${p.zone}` }, ZONE_SHORT[p.zone]),
+      ];
+      return element("tr", {}, cells.join(""));
+    })
+    .join("");
+  const caption = `${VIEW_QUANTITIES[view]}, lags 1–${table.maxLag}; corridors ±${figure(table.innerLevel, 3)} (one lag) and ±${figure(table.outerLevel, 3)} (all lags)${withTests ? `; joint test ${TEST_NAMES[table.testKind]}` : ""}`;
+  return element(
+    "table",
+    { class: "figures" },
+    `${textElement("caption", {}, caption)}<thead>${head}</thead><tbody>${body}</tbody>`,
+  );
+}
+
+/** The explanation as paragraphs, each led by its heading. */
+export function explanationHtml(explanation: Explanation): string {
+  return element(
+    "div",
+    { class: "explanation" },
+    explanation.items
+      .map((item) =>
+        element(
+          "p",
+          { class: `explain-${item.topic}` },
+          `${textElement("strong", {}, item.heading)} ${escapeMarkup(item.text)}`,
+        ),
+      )
+      .join(""),
+  );
+}

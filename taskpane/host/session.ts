@@ -1,0 +1,106 @@
+/**
+ * The pane's link to the workbook, without any DOM: it reads the selection when it changes, or —
+ * once a range is pinned — re-reads that range whenever a change touches it, and hands each
+ * reading to its listener. Readings can overlap (a fast series of selection events); only the
+ * latest one is delivered.
+ */
+import { splitAddress } from "./address";
+import { HostError, type ExcelRun } from "./excel";
+import { followRange, type Following } from "./follow";
+import { readRangeAt, readSelectedRange, type RangeRead, type ReadOptions } from "./readRange";
+import { watchSelection, type Watching } from "./selection";
+
+export interface SessionListener {
+  /** A new reading to analyse. */
+  onRead(read: RangeRead): void;
+  /** Rows read so far of a long range. */
+  onProgress(done: number, total: number): void;
+  onError(error: unknown): void;
+  /** The pinned address, or null when the pane follows the selection again. */
+  onPinChange(pinned: string | null): void;
+}
+
+export class HostSession {
+  private following: Following | null = null;
+  private watching: Watching | null = null;
+  private current: RangeRead | null = null;
+  private generation = 0;
+
+  constructor(
+    private readonly run: ExcelRun,
+    private readonly listener: SessionListener,
+    private readonly readOptions: Omit<ReadOptions, "onProgress"> = {},
+  ) {}
+
+  /** The latest reading delivered. */
+  get reading(): RangeRead | null {
+    return this.current;
+  }
+
+  get pinnedAddress(): string | null {
+    return this.following?.address ?? null;
+  }
+
+  async start(): Promise<void> {
+    this.watching = await watchSelection(this.run, () => this.onSelection());
+    await this.refresh();
+  }
+
+  async stop(): Promise<void> {
+    await this.watching?.stop();
+    await this.following?.stop();
+    this.watching = null;
+    this.following = null;
+  }
+
+  /** Pins the range last read (as selected, so a pinned whole column keeps its new rows). */
+  async pin(): Promise<void> {
+    const reading = this.current;
+    if (reading === null || reading.rows === 0) {
+      throw new HostError("select a range with values first, then pin it");
+    }
+    await this.following?.stop();
+    this.following = await followRange(this.run, reading.selected, () => this.refresh());
+    this.listener.onPinChange(reading.selected);
+  }
+
+  async unpin(): Promise<void> {
+    await this.following?.stop();
+    this.following = null;
+    this.listener.onPinChange(null);
+    await this.refresh();
+  }
+
+  /** Reads the pinned range if there is one, else the selection, and delivers it. */
+  async refresh(): Promise<void> {
+    const generation = ++this.generation;
+    const options: ReadOptions = {
+      ...this.readOptions,
+      onProgress: (done, total) => {
+        if (generation === this.generation) this.listener.onProgress(done, total);
+      },
+    };
+    try {
+      const pinned = this.pinnedAddress;
+      const reading =
+        pinned === null
+          ? await readSelectedRange(this.run, options)
+          : await readRangeAt(
+              this.run,
+              splitAddress(pinned).sheet,
+              splitAddress(pinned).range,
+              options,
+            );
+      if (generation !== this.generation) return;
+      this.current = reading;
+      this.listener.onRead(reading);
+    } catch (error) {
+      if (generation === this.generation) this.listener.onError(error);
+    }
+  }
+
+  private async onSelection(): Promise<void> {
+    if (this.following !== null) return;
+    await this.refresh();
+  }
+}
