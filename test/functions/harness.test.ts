@@ -4,6 +4,9 @@
  * passes them. Values are checked against the core (the same computation, so exactly equal) and
  * against outside figures, each with its source beside it.
  */
+import { mkdirSync, writeFileSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { fileURLToPath } from "node:url";
 import { beforeAll, describe, expect, it } from "vitest";
 import {
   chiSquareUpperTail,
@@ -116,6 +119,21 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
         row.jointP,
       ]);
     });
+  });
+
+  it("writes the spilled table to test-output/functions/series-f-lagtable.tsv for the record", () => {
+    const result = call("SERIESLAGTABLE", seriesFColumn, 10);
+    const folder = join(
+      dirname(fileURLToPath(import.meta.url)),
+      "..",
+      "..",
+      "test-output",
+      "functions",
+    );
+    mkdirSync(folder, { recursive: true });
+    const text = result.map((row) => row.map((cell) => String(cell)).join("\t")).join("\n");
+    writeFileSync(join(folder, "series-f-lagtable.tsv"), `${text}\n`);
+    expect(text.split("\n").length).toBe(11);
   });
 
   it("matches the printed Series F autocorrelations r_1..r_10", () => {
