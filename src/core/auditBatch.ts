@@ -1,0 +1,74 @@
+/**
+ * The forecast audit of many series at once (one forecast-error series per item): each series'
+ * audit (forecastAudit.ts), and across the items Benjamini–Hochberg q-values (Benjamini & Hochberg
+ * 1995, JRSS B 57:289–300; multiplicity.ts) of the dependence test and of the bias test
+ * separately, with how many items each flags raw (p < alpha) and under the false-discovery rate
+ * (q ≤ alpha). An item that cannot be audited (too few values, constant) keeps its place with
+ * the reason and stays out of both families; when no item can be audited the first refusal is
+ * thrown. Cost: one audit per series.
+ */
+import { isEcholotError } from "./errors";
+import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
+import { benjaminiHochberg } from "./multiplicity";
+import { resolveAlpha } from "./options";
+import type { Series } from "./types";
+
+export interface AuditBatchItem {
+  readonly label: string;
+  /** The audit, or null when the series could not be audited. */
+  readonly audit: ForecastAudit | null;
+  /** Why the series could not be audited ("" when it was). */
+  readonly problem: string;
+  /** BH q-values across the items audited (NaN for the others). */
+  readonly dependenceQValue: number;
+  readonly biasQValue: number;
+}
+
+export interface AuditBatch {
+  readonly alpha: number;
+  readonly items: readonly AuditBatchItem[];
+  /** Dependence tests with p < alpha, and with q-value ≤ alpha. */
+  readonly flaggedRaw: number;
+  readonly flaggedFdr: number;
+  /** Bias tests with p < alpha, and with q-value ≤ alpha. */
+  readonly biasFlaggedRaw: number;
+  readonly biasFlaggedFdr: number;
+}
+
+export function auditBatch(
+  seriesList: readonly Series[],
+  options: ForecastAuditOptions,
+): AuditBatch {
+  const alpha = resolveAlpha(options.alpha);
+  let firstRefusal: unknown;
+  const audited = seriesList.map((series, index) => {
+    const label = series.label === "" ? `series ${index + 1}` : series.label;
+    try {
+      return { label, audit: forecastAudit(series, options), problem: "" };
+    } catch (error) {
+      if (!isEcholotError(error)) throw error;
+      firstRefusal ??= error;
+      return { label, audit: null, problem: error.message };
+    }
+  });
+  if (audited.every((item) => item.audit === null)) throw firstRefusal;
+  const dependenceP = audited.map((item) => item.audit?.dependenceTest.p ?? NaN);
+  const biasP = audited.map((item) => item.audit?.bias.p ?? NaN);
+  const dependenceQ = benjaminiHochberg(dependenceP);
+  const biasQ = benjaminiHochberg(biasP);
+  const items = audited.map((item, i) => ({
+    ...item,
+    dependenceQValue: dependenceQ[i] as number,
+    biasQValue: biasQ[i] as number,
+  }));
+  const count = (values: ArrayLike<number>, pass: (x: number) => boolean) =>
+    Array.from(values).filter(pass).length;
+  return {
+    alpha,
+    items,
+    flaggedRaw: count(dependenceP, (p) => p < alpha),
+    flaggedFdr: count(dependenceQ, (q) => q <= alpha),
+    biasFlaggedRaw: count(biasP, (p) => p < alpha),
+    biasFlaggedFdr: count(biasQ, (q) => q <= alpha),
+  };
+}
