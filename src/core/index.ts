@@ -27,3 +27,4 @@ export * from "./crossCorrelation";
 export * from "./rolling";
 export * from "./runs";
 export * from "./normality";
+export * from "./auditBatch";
