@@ -140,7 +140,7 @@ export function evidenceChartSvg(table: LagTable, options: EvidenceChartOptions 
         width: px(frame.right - frame.left),
         height: px(y(-level) - y(level)),
         fill,
-        "data-level": figure(level),
+        "data-level": figure(level, 10),
       },
       textElement(
         "title",
@@ -323,8 +323,8 @@ export function evidenceChartSvg(table: LagTable, options: EvidenceChartOptions 
       role: "img",
       "aria-labelledby": `${id}-title ${id}-desc`,
       "font-family": "system-ui, sans-serif",
-      "data-inner": figure(table.innerLevel),
-      "data-outer": figure(table.outerLevel),
+      "data-inner": figure(table.innerLevel, 10),
+      "data-outer": figure(table.outerLevel, 10),
     },
     parts.join(""),
   );

@@ -1,0 +1,67 @@
+/**
+ * The batch check as a fixed-width text table for the terminal: one row per series, sorted by
+ * q-value (the ones to look at first on top), then the count the raw p-values flag against the
+ * count the false-discovery rate keeps, and the reasons of series that could not be analysed.
+ */
+import { formatNumber, TEST_NAMES, type BatchCheck, type TestKind } from "../core";
+import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
+import { pCell, numberCell } from "./tableCells";
+
+export interface BatchTextContext {
+  readonly maxLag: number | null;
+  readonly season: number | null;
+  readonly testKind: TestKind;
+}
+
+export function batchText(batch: BatchCheck, context: BatchTextContext): string {
+  const { alpha } = batch;
+  const width = Math.max(6, ...batch.rows.map((row) => row.label.length));
+  const order = batch.rows
+    .map((row, index) => ({ row, index }))
+    .sort((a, b) => sortKey(a.row.qValue) - sortKey(b.row.qValue) || a.index - b.index);
+  const lines: string[] = [];
+  lines.push(
+    `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${context.maxLag === null ? "the default lags" : `${context.maxLag} lags`}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}; sorted by q-value`,
+  );
+  lines.push("");
+  lines.push(
+    `${"series".padEnd(width)}      n         Q   df         p   q-value  verdict     flagged`,
+  );
+  for (const { row } of order) {
+    const badge =
+      row.verdict === null ? "— not analysed" : `${BADGES[row.verdict].shape} ${row.verdict}`;
+    const flags = [row.p < alpha ? "raw" : "", row.qValue <= alpha ? "FDR" : ""]
+      .filter((f) => f !== "")
+      .join(" + ");
+    lines.push(
+      [
+        row.label.padEnd(width),
+        String(row.n).padStart(6),
+        numberCell(row.q, 2, 9),
+        String(row.df).padStart(4),
+        pCell(row.p, 9),
+        pCell(row.qValue, 9),
+        ` ${badge.padEnd(11)}`,
+        flags,
+      ].join(" "),
+    );
+  }
+  lines.push("");
+  const expected = formatNumber(batch.analysed * alpha, 2);
+  lines.push(
+    `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
+  );
+  lines.push(
+    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to ${Number((alpha * 100).toPrecision(3))}% on average.`,
+  );
+  for (const { row } of order) {
+    if (row.verdict === null) lines.push(`not analysed: ${row.label}: ${row.reason}`);
+  }
+  lines.push("");
+  lines.push(SCREENING_CAUTION);
+  return lines.map((line) => line.trimEnd()).join("\n");
+}
+
+function sortKey(q: number): number {
+  return Number.isNaN(q) ? Infinity : q;
+}
