@@ -3,7 +3,8 @@
  * precision (JSON.stringify writes the shortest round-trip form); an undefined figure (NaN) is
  * written as null.
  */
-import type { LagTable } from "../core";
+import type { AuditBatch, BatchCheck, ForecastAuditOptions, LagTable } from "../core";
+import type { SideChecks } from "../report/sideChecksText";
 
 export function lagTableJson(table: LagTable): Record<string, unknown> {
   return {
@@ -43,6 +44,126 @@ export function lagTableJson(table: LagTable): Record<string, unknown> {
       chance: table.falseAlarm.chance,
     },
     verdict: { word: table.verdict.word, reason: table.verdict.reason },
+  };
+}
+
+/**
+ * The side checks under the names the `check --json` document promises; a check the data could
+ * not support is null, and its reason is listed under `notComputed`.
+ */
+export function sideChecksJson(side: SideChecks): Record<string, unknown> {
+  const notComputed: Record<string, string> = {};
+  const field = <T>(name: string, value: T | string, shape: (v: T) => Record<string, unknown>) => {
+    if (typeof value !== "string") return shape(value);
+    notComputed[name] = value;
+    return null;
+  };
+  const document: Record<string, unknown> = {
+    volatility: field("volatility", side.volatility, (v) => ({
+      lm: v.lm,
+      df: v.df,
+      p: v.p,
+      mcleodLiQ: v.mcleodLiQ,
+      mcleodLiP: v.mcleodLiP,
+    })),
+    bias: field("bias", side.bias, (b) => ({
+      mean: b.mean,
+      se: b.se,
+      t: b.t,
+      p: b.p,
+      hacLags: b.hacLags,
+    })),
+    runs: field("runs", side.runs, (r) => ({ runs: r.runs, expected: r.expected, z: r.z, p: r.p })),
+    normality: field("normality", side.normality, (j) => ({ jb: j.jb, p: j.p })),
+  };
+  if (Object.keys(notComputed).length > 0) document.notComputed = notComputed;
+  return document;
+}
+
+/** The `batch --json` document: one entry per series in the order of the file. */
+export function batchJson(batch: BatchCheck): Record<string, unknown> {
+  return {
+    alpha: batch.alpha,
+    series: batch.rows.map((row) => ({
+      label: row.label,
+      n: row.n,
+      q: row.q,
+      df: row.df,
+      p: row.p,
+      qValue: row.qValue,
+      verdict: row.verdict,
+      reason: row.reason,
+    })),
+    flaggedRaw: batch.flaggedRaw,
+    flaggedFdr: batch.flaggedFdr,
+  };
+}
+
+/**
+ * The `audit --json` document: the batch shape (q, df and p are the dependence test of lags h..K,
+ * qValue its Benjamini–Hochberg value across the series, verdict the audit's), with each series'
+ * bias and lags beside it. `flaggedRaw`/`flaggedFdr` count the dependence tests; `biasFlaggedRaw`/
+ * `biasFlaggedFdr` the bias tests. A series that could not be audited has null figures and its
+ * reason.
+ */
+export function auditJson(
+  batch: AuditBatch,
+  options: ForecastAuditOptions,
+): Record<string, unknown> {
+  return {
+    horizon: options.horizon,
+    season: options.season ?? null,
+    alpha: batch.alpha,
+    series: batch.items.map((item) => {
+      const audit = item.audit;
+      if (audit === null) {
+        return {
+          label: item.label,
+          n: null,
+          q: null,
+          df: null,
+          p: null,
+          qValue: null,
+          verdict: null,
+          reason: item.problem,
+        };
+      }
+      return {
+        label: item.label,
+        n: audit.n,
+        q: audit.dependenceTest.q,
+        df: audit.dependenceTest.df,
+        p: audit.dependenceTest.p,
+        qValue: item.dependenceQValue,
+        verdict: audit.verdict.word,
+        reason: audit.verdict.reason,
+        firstLag: audit.dependenceTest.firstLag,
+        maxLag: audit.maxLag,
+        dependence: audit.dependence.word,
+        bias: {
+          mean: audit.bias.mean,
+          se: audit.bias.se,
+          t: audit.bias.t,
+          p: audit.bias.p,
+          qValue: item.biasQValue,
+          hacLags: audit.bias.hacLags,
+        },
+        lags: audit.rows.map((row) => ({
+          lag: row.lag,
+          corr: row.correlation,
+          band: row.band,
+          z: row.z,
+          pLag: row.pLag,
+          counted: row.counted,
+          beyond: row.beyond,
+          outer: row.outer,
+        })),
+      };
+    }),
+    flaggedRaw: batch.flaggedRaw,
+    flaggedFdr: batch.flaggedFdr,
+    biasFlaggedRaw: batch.biasFlaggedRaw,
+    biasFlaggedFdr: batch.biasFlaggedFdr,
   };
 }
 

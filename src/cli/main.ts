@@ -3,6 +3,8 @@
  * arguments, with one message on stderr and nothing on stdout; exit 1 on an internal failure.
  */
 import { isEcholotError } from "../core";
+import { runAudit } from "./audit";
+import { runBatch } from "./batch";
 import { runCheck } from "./check";
 import { runDemo } from "./demo";
 import { UsageError } from "./errors";
@@ -10,12 +12,17 @@ import { UsageError } from "./errors";
 const USAGE = `usage:
   echolot check FILE.csv [--column NAME|N] [--lags K] [--season M] [--fitted P] [--alpha A]
                          [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
+  echolot audit FILE.csv --horizon H [--season M] [--alpha A] [--lags K] [--json]
+  echolot batch FILE.csv [--lags K] [--season M] [--fitted P] [--alpha A]
+                         [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
   echolot demo`;
 
 type Command = (argv: readonly string[]) => string;
 
 const COMMANDS: Readonly<Record<string, Command>> = {
   check: runCheck,
+  audit: runAudit,
+  batch: runBatch,
   demo: () => runDemo(),
 };
 
@@ -27,7 +34,8 @@ function cliWording(message: string): string {
     .replace(/^alpha\b/, "--alpha")
     .replace(/^season\b/, "--season")
     .replace(/^bandKind\b/, "--bands")
-    .replace(/^testKind\b/, "--test");
+    .replace(/^testKind\b/, "--test")
+    .replace(/^horizon\b/, "--horizon");
 }
 
 export function main(argv: readonly string[]): number {
