@@ -38,55 +38,71 @@ export function directLagProductSums(a: Float64Array, maxLag: number): Float64Ar
   for (let from = 0; from < length; from += BLOCK) {
     const to = Math.min(length, from + BLOCK);
     for (let k0 = 0; k0 <= maxLag; k0 += LAG_GROUP) {
+      groupBlockSums(a, from, to, k0, group);
       const lastLag = Math.min(maxLag, k0 + LAG_GROUP - 1);
-      // Positions where all six lags of the group have a partner (t − k0 − 5 ≥ 0).
-      const start = Math.min(to, Math.max(from, k0 + LAG_GROUP - 1));
-      let s0 = 0;
-      let s1 = 0;
-      let s2 = 0;
-      let s3 = 0;
-      let s4 = 0;
-      let s5 = 0;
-      if (start < to) {
-        const base = start - k0;
-        let w1 = a[base - 1] as number;
-        let w2 = a[base - 2] as number;
-        let w3 = a[base - 3] as number;
-        let w4 = a[base - 4] as number;
-        let w5 = a[base - 5] as number;
-        for (let t = start; t < to; t++) {
-          const x = a[t] as number;
-          const w0 = a[t - k0] as number;
-          s0 += x * w0;
-          s1 += x * w1;
-          s2 += x * w2;
-          s3 += x * w3;
-          s4 += x * w4;
-          s5 += x * w5;
-          w5 = w4;
-          w4 = w3;
-          w3 = w2;
-          w2 = w1;
-          w1 = w0;
-        }
-      }
-      group[0] = s0;
-      group[1] = s1;
-      group[2] = s2;
-      group[3] = s3;
-      group[4] = s4;
-      group[5] = s5;
-      for (let k = k0; k <= lastLag; k++) {
-        // The first positions of the series, where only some lags of the group have a partner.
-        let head = 0;
-        for (let t = Math.max(from, k); t < start; t++)
-          head += (a[t] as number) * (a[t - k] as number);
-        totals.add(k, (group[k - k0] as number) + head);
-      }
+      for (let k = k0; k <= lastLag; k++) totals.add(k, group[k - k0] as number);
     }
   }
-  return totals.values();
+  return totals.totals();
 }
+
+/**
+ * Σ_{t ∈ [from, to), t ≥ k} a_t a_{t−k} for the six lags k = k0..k0+5, into `out`. A function of
+ * its own, called once per block and group, so the engine optimises it early and keeps it.
+ */
+function groupBlockSums(
+  a: Float64Array,
+  from: number,
+  to: number,
+  k0: number,
+  out: Float64Array,
+): void {
+  // Positions where all six lags of the group have a partner (t − k0 − 5 ≥ 0).
+  const start = Math.min(to, Math.max(from, k0 + LAG_GROUP - 1));
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
+  let s4 = 0;
+  let s5 = 0;
+  if (start < to) {
+    const base = start - k0;
+    let w1 = a[base - 1] as number;
+    let w2 = a[base - 2] as number;
+    let w3 = a[base - 3] as number;
+    let w4 = a[base - 4] as number;
+    let w5 = a[base - 5] as number;
+    for (let t = start; t < to; t++) {
+      const x = a[t] as number;
+      const w0 = a[t - k0] as number;
+      s0 += x * w0;
+      s1 += x * w1;
+      s2 += x * w2;
+      s3 += x * w3;
+      s4 += x * w4;
+      s5 += x * w5;
+      w5 = w4;
+      w4 = w3;
+      w3 = w2;
+      w2 = w1;
+      w1 = w0;
+    }
+  }
+  out[0] = s0;
+  out[1] = s1;
+  out[2] = s2;
+  out[3] = s3;
+  out[4] = s4;
+  out[5] = s5;
+  // The first positions of the series, where only some lags of the group have a partner.
+  for (let j = 0; j < LAG_GROUP; j++) {
+    const k = k0 + j;
+    let head = 0;
+    for (let t = Math.max(from, k); t < start; t++) head += (a[t] as number) * (a[t - k] as number);
+    out[j] = (out[j] as number) + head;
+  }
+}
+
 /**
  * Cost of one transform step (one element of one radix-2 stage, with its share of the block
  * copying and spectrum sums) in units of one multiply-add of the direct path. Measured on the
@@ -186,12 +202,12 @@ export function autocorrelation(series: Series, maxLag: number): Autocorrelation
       `the series${series.label ? ` "${series.label}"` : ""} is constant (every value is ${mean}): its autocorrelation is undefined`,
     );
   }
-  const sums = lagProductSums(deviations, maxLag);
   const pairs = pairCounts(series, maxLag);
-  const autocovariance = new Float64Array(maxLag + 1);
+  // The lag sums s_k, turned into γ̂_k = s_k/n in place.
+  const autocovariance = lagProductSums(deviations, maxLag);
   const correlation = new Float64Array(maxLag + 1);
   for (let k = 0; k <= maxLag; k++) {
-    const s = k === 0 ? sumSquares : (pairs[k] as number) > 0 ? (sums[k] as number) : NaN;
+    const s = k === 0 ? sumSquares : (pairs[k] as number) > 0 ? (autocovariance[k] as number) : NaN;
     autocovariance[k] = s / n;
     correlation[k] = k === 0 ? 1 : s / sumSquares;
   }

@@ -132,8 +132,14 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
     falseAlarm,
     subject,
   });
+  // Fields listed one by one (not spread from `resolved`): the spread builds a slow object.
   return {
-    ...resolved,
+    maxLag: K,
+    alpha,
+    season,
+    fittedParams,
+    bandKind,
+    testKind,
     label: series.label,
     subject,
     n: ac.n,

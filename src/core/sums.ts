@@ -32,16 +32,17 @@ export class CompensatedSum {
 }
 
 /**
- * Many Neumaier accumulators side by side (one per lag, say), held in two typed arrays so that
- * adding to one allocates nothing. `add(i, x)` is `CompensatedSum.add` for accumulator i.
+ * Many Neumaier accumulators side by side (one per lag, say), so that adding to one allocates
+ * nothing. `add(i, x)` is `CompensatedSum.add` for accumulator i.
  */
 export class CompensatedSums {
   private readonly sums: Float64Array;
-  private readonly compensations: Float64Array;
+  private readonly compensations: number[];
 
   constructor(count: number) {
     this.sums = new Float64Array(count);
-    this.compensations = new Float64Array(count);
+    // An ordinary array: small typed arrays cost more to allocate than they save here.
+    this.compensations = new Array<number>(count).fill(0);
   }
 
   add(index: number, value: number): void {
@@ -52,13 +53,13 @@ export class CompensatedSums {
     this.sums[index] = t;
   }
 
-  /** The compensated totals, one per accumulator. */
-  values(): Float64Array {
-    const totals = new Float64Array(this.sums.length);
-    for (let i = 0; i < totals.length; i++) {
-      totals[i] = (this.sums[i] as number) + (this.compensations[i] as number);
+  /** The compensated totals, one per accumulator (folded into the accumulators' own array). */
+  totals(): Float64Array {
+    for (let i = 0; i < this.sums.length; i++) {
+      this.sums[i] = (this.sums[i] as number) + (this.compensations[i] as number);
+      this.compensations[i] = 0;
     }
-    return totals;
+    return this.sums;
   }
 }
 
