@@ -13,6 +13,7 @@ import {
   lagTable,
   seriesFromCells,
   seriesFromNumbers,
+  type LagRow,
   type LagTable,
 } from "../../src/core";
 import { seededRandom } from "../../src/sim/random";
@@ -59,6 +60,11 @@ function numberAt(result: CellResult, r: number, c: number): number {
   const cell = result[r]?.[c];
   if (typeof cell !== "number") throw new Error(`cell [${r}][${c}] is ${JSON.stringify(cell)}`);
   return cell;
+}
+
+/** The cells SERIESLAGTABLE should spill for one row of the core's lag table. */
+function lagTableCells(row: LagRow): number[] {
+  return [row.lag, row.correlation, row.partial, row.z, row.pLag, row.pSidak, row.jointP];
 }
 
 /** Column of numbers → plain array (each row one cell). */
@@ -109,15 +115,7 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
     ]);
     expect(result.length).toBe(11);
     coreF10.rows.forEach((row, i) => {
-      expect(result[i + 1], `row for lag ${row.lag}`).toEqual([
-        row.lag,
-        row.correlation,
-        row.partial,
-        row.z,
-        row.pLag,
-        row.pSidak,
-        row.jointP,
-      ]);
+      expect(result[i + 1], `row for lag ${row.lag}`).toEqual(lagTableCells(row));
     });
   });
 
@@ -187,6 +185,18 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
     expect(call("SERIESLAGTABLE", padded, 10)).toEqual(call("SERIESLAGTABLE", seriesFColumn, 10));
   });
 
+  it("reads an absent cell (a short row, undefined) as a blank", () => {
+    const absent: unknown[][] = [[], ...seriesFColumn.slice(1), [undefined], []];
+    expect(call("SERIESLAGTABLE", absent, 10)).toEqual(call("SERIESLAGTABLE", seriesFColumn, 10));
+  });
+
+  it("handles a column of 300,000 rows as the core does", () => {
+    const noise = whiteNoise(seededRandom(7), 300_000);
+    const result = call("SERIESNOISECHECK", columnRange(["residual", ...noise]));
+    const core = lagTable(seriesFromNumbers(noise));
+    expect(result).toEqual([[core.verdict.word, core.verdict.reason]]);
+  });
+
   it('keeps an interior #N/A, "" or null as a gap in place, never as 0', () => {
     for (const gap of [errorCell(ErrorCode.notAvailable), "", null]) {
       const cells = ["yield", ...seriesF] as unknown[];
@@ -195,15 +205,7 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
       const core = lagTable(seriesFromCells(columnRange(cells)), { maxLag: 10 });
       expect(core.gaps).toBe(1);
       core.rows.forEach((row, i) =>
-        expect(result[i + 1], `lag ${row.lag} with a gap at row 21`).toEqual([
-          row.lag,
-          row.correlation,
-          row.partial,
-          row.z,
-          row.pLag,
-          row.pSidak,
-          row.jointP,
-        ]),
+        expect(result[i + 1], `lag ${row.lag} with a gap at row 21`).toEqual(lagTableCells(row)),
       );
       const zeroed = [...cells];
       zeroed[20] = 0;

@@ -137,10 +137,11 @@ describe("manifest/manifest.xml", () => {
     expect(urls.get(child(action, "SourceLocation").attributes.resid ?? "")).toBe(
       `${SERVER}taskpane.html`,
     );
-    expect(shortStrings.get(child(button, "Label").attributes.resid ?? "")).toBeTruthy();
-    expect(
-      longStrings.get(at(button, "Supertip", "Description").attributes.resid ?? ""),
-    ).toBeTruthy();
+    const label = shortStrings.get(child(button, "Label").attributes.resid ?? "") ?? "";
+    expect(label.length, "button label").toBeGreaterThan(3);
+    const tooltip =
+      longStrings.get(at(button, "Supertip", "Description").attributes.resid ?? "") ?? "";
+    expect(tooltip.length, "button tooltip").toBeGreaterThan(20);
   });
 
   it("keeps resources in schema order, their ids unique and within 32 characters", () => {
