@@ -112,17 +112,43 @@ function groupBlockSums(
 export const FFT_STEP_COST = 7;
 
 /**
- * Whether the transform path is expected to be faster than the direct path for lags 0..maxLag
- * on `length` positions: direct work Σ_{k≤K} (length − k) multiply-adds against
- * blocks·N·log₂N transform steps (fft.ts).
+ * Expected cost, in direct multiply-adds, of lags 0..maxLag on `length` positions by each path:
+ * Σ_{k≤K} (length − k) for the direct path, (blocks + 1)·N·log₂N transform steps (fft.ts).
  */
-export function prefersFft(length: number, maxLag: number): boolean {
+export function lagSumCosts(length: number, maxLag: number): { direct: number; fft: number } {
   const lags = Math.min(maxLag, length - 1) + 1;
-  const direct = lags * (length - (lags - 1) / 2);
   const size = fftBlockSize(length, maxLag);
   const blocks = Math.ceil(length / (size - maxLag));
-  const transform = (blocks + 1) * size * Math.log2(size) * FFT_STEP_COST;
-  return transform < direct;
+  return {
+    direct: lags * (length - (lags - 1) / 2),
+    fft: (blocks + 1) * size * Math.log2(size) * FFT_STEP_COST,
+  };
+}
+
+const crossoverCache = new Map<number, number>();
+
+/**
+ * The crossover for a series of `length` positions: the smallest K at which the transform path
+ * is expected to be faster (`length` when it never is). One threshold per length, so a longer
+ * lag list never switches back to the direct path. Remembered for the last few lengths seen.
+ */
+export function fftCrossover(length: number): number {
+  const known = crossoverCache.get(length);
+  if (known !== undefined) return known;
+  let lag = 1;
+  while (lag < length) {
+    const cost = lagSumCosts(length, lag);
+    if (cost.fft < cost.direct) break;
+    lag++;
+  }
+  if (crossoverCache.size >= 64) crossoverCache.clear();
+  crossoverCache.set(length, lag);
+  return lag;
+}
+
+/** Whether lags 0..maxLag on `length` positions take the transform path: maxLag ≥ the crossover. */
+export function prefersFft(length: number, maxLag: number): boolean {
+  return maxLag >= fftCrossover(length);
 }
 
 /**
