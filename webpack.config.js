@@ -27,6 +27,7 @@ function copyPatterns(useCdn) {
   const patterns = [
     { from: "manifest/manifest.xml", to: "manifest.xml" },
     { from: "manifest/icons", to: "assets" },
+    { from: "taskpane/taskpane.css", to: "taskpane.css" },
   ];
   if (!useCdn) {
     patterns.push({
@@ -119,6 +120,8 @@ module.exports = async (env, argv) => {
           exclude: /node_modules/,
           use: { loader: "ts-loader", options: { transpileOnly: true } },
         },
+        // `import text from "./file.csv?raw"`: the pane's demo data, bundled as text.
+        { resourceQuery: /raw/, type: "asset/source" },
       ],
     },
     plugins: [
@@ -133,6 +136,8 @@ module.exports = async (env, argv) => {
         chunks: ["functions", "taskpane"],
         chunksSortMode: "manual",
         officeJs: useCdn ? OFFICE_JS_CDN : OFFICE_JS_LOCAL,
+        // The page's Content-Security-Policy: scripts from this origin (and the CDN in a store build).
+        scriptSources: useCdn ? `'self' ${new URL(OFFICE_JS_CDN).origin}` : "'self'",
       }),
       new CopyWebpackPlugin({ patterns: copyPatterns(useCdn) }),
     ],
