@@ -11,10 +11,12 @@
  * Σ p_t y_{t−k}, Σ y_t y_{t−k} and Σ p_t p_{t−k}; then with the window mean μ,
  *   Σ (y_t − μ)(y_{t−k} − μ) = Σ y_t y_{t−k} − μ(Σ y_t p_{t−k} + Σ p_t y_{t−k}) + μ² Σ p_t p_{t−k}.
  * To keep that expansion accurate the shift μ₀ is reset to the current window's mean and the sums
- * recomputed every `window` positions (so rounding never accumulates over more than one window, and
- * the cancellation stays that of a window about a nearby centre); a window whose variance is below
- * 1e-12 of its sum of squares about μ₀ is recomputed exactly, two-pass. Cost O(n·K) (amortised:
- * one full recomputation per `window` positions), plus K upper-tail evaluations per window reported.
+ * recomputed every `window` positions (so rounding never accumulates over more than one window),
+ * and also whenever a window's c₀ falls below 1e-4 of its sum of squares about μ₀ (its mean has
+ * moved more than 100 standard deviations from μ₀, as after a level shift); a window still that
+ * degenerate after re-centring is computed two-pass from scratch (autocovariance.ts), and is NaN if
+ * constant. Cost O(n·K) (amortised: one recomputation per `window` positions, plus one per such
+ * jump), plus K upper-tail evaluations per window reported.
  *
  * NaN: before the first full window, between steps, and for a window with fewer than max(3, K + 1) values
  * or a constant one.
@@ -42,8 +44,12 @@ export interface RollingCheck {
   readonly p: Float64Array;
 }
 
-/** Whether a window of the position range is too degenerate for the sliding sums. */
-const CANCELLATION_LIMIT = 1e-12;
+/**
+ * The sliding expansion is used while the window's c₀ is at least this share of its sum of
+ * squares about the shift (the mean within 100 standard deviations of the shift): the rounding
+ * of the sums, relative to c₀, then stays below about 1e4·eps·√window.
+ */
+const CANCELLATION_LIMIT = 1e-4;
 
 function resolveWhole(name: string, value: number, lo: number, hi: number, what: string): number {
   if (!(Number.isInteger(value) && value >= lo && value <= hi)) {
@@ -84,7 +90,12 @@ export function rollingCheck(series: Series, options: RollingOptions): RollingCh
     if ((end - (window - 1)) % step !== 0) continue;
     if (!(sums.m >= Math.max(3, K + 1))) continue;
     if (!sums.correlations(correlation)) {
-      if (!exactCorrelations(series, start, end, K, correlation)) continue;
+      // The window's mean has moved far from the shift (or the window is nearly constant):
+      // re-centre on this window, and if it is still degenerate, decide exactly.
+      sums.recompute(start, end);
+      if (!sums.correlations(correlation)) {
+        if (!exactCorrelations(series, start, end, K, correlation)) continue;
+      }
     }
     const joint = cumulativeJointTest({
       kind: "ljung-box",
