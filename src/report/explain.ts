@@ -9,12 +9,12 @@ import {
   falseAlarmSentence,
   formatLagList,
   formatNumber,
-  formatP,
   seasonalLags,
   TEST_NAMES,
   type LagTable,
   type VerdictWord,
 } from "../core";
+import { pPhrase } from "./checkLines";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 
 export type ExplanationTopic =
@@ -172,20 +172,18 @@ function smallSampleText(table: LagTable): string | undefined {
 }
 
 function volatilityText(table: LagTable, context: ExplainContext): string | undefined {
-  const parts: string[] = [];
-  const squares = context.squares;
   const robust = table.bandKind === "robust";
-  if (squares !== undefined && squares.joint.p < squares.alpha) {
-    const test = TEST_NAMES.squares;
-    const figures = `Q = ${formatNumber(squares.joint.q, 4)}, df ${squares.joint.df}, p = ${formatP(squares.joint.p)}`;
-    parts.push(
-      robust
-        ? `The squared deviations are correlated (${test}, ${figures}): volatility clusters. The robust bands in use allow for it.`
-        : `The squared deviations are correlated (${test}, ${figures}): volatility clusters, so plain bands are too narrow and over-alarm. Choose robust bands${table.testKind === "robust" ? "" : " and the robust joint test"} before trusting this verdict.`,
-    );
+  const allowed = "The robust bands in use allow for it.";
+  // The volatility check's sentence already carries McLeod–Li; the squares table is the fallback.
+  if (context.volatility?.flagged === true) {
+    return robust ? `${context.volatility.text} ${allowed}` : context.volatility.text;
   }
-  if (context.volatility?.flagged === true) parts.push(context.volatility.text);
-  return parts.length === 0 ? undefined : parts.join(" ");
+  const squares = context.squares;
+  if (squares === undefined || !(squares.joint.p < squares.alpha)) return undefined;
+  const figures = `${TEST_NAMES.squares}, Q = ${formatNumber(squares.joint.q, 4)}, df ${squares.joint.df}, ${pPhrase(squares.joint.p)}`;
+  return robust
+    ? `The squared deviations are correlated (${figures}): volatility clusters. ${allowed}`
+    : `The squared deviations are correlated (${figures}): volatility clusters, so plain bands are too narrow and over-alarm. Choose robust bands${table.testKind === "robust" ? "" : " and the robust joint test"} before trusting this verdict.`;
 }
 
 /** The explanation as plain paragraphs: "heading: text", one per line. */

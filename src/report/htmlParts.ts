@@ -4,10 +4,18 @@
  * explanation. Every text is escaped; colours come from the palette as SVG presentation
  * attributes, so the fragments need no inline style (the pane's CSP forbids it).
  */
-import { formatP, TEST_NAMES, type LagTable, type VerdictWord } from "../core";
+import {
+  formatNumber,
+  formatP,
+  TEST_NAMES,
+  type BatchCheck,
+  type LagTable,
+  type VerdictWord,
+} from "../core";
 import { escapeMarkup } from "./escape";
 import type { Explanation } from "./explain";
 import { lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
+import { PALETTE, ZONE_COLOURS, type Zone } from "./palette";
 import { element, figure, signed, textElement } from "./svg";
 import { BADGES } from "./verdictBadge";
 
@@ -107,5 +115,100 @@ export function explanationHtml(explanation: Explanation): string {
         ),
       )
       .join(""),
+  );
+}
+
+const LEGEND_WORDS: Readonly<Record<Zone, string>> = {
+  inside: "inside the one-lag corridor",
+  between: "between the corridors",
+  beyond: "beyond the all-lags corridor",
+};
+
+function swatch(inner: string): string {
+  return element(
+    "svg",
+    { width: 12, height: 12, viewBox: "0 0 12 12", "aria-hidden": "true" },
+    inner,
+  );
+}
+
+/** The chart's key in words and swatches (the chart itself also names each diamond's zone). */
+export function zoneLegendHtml(table: LagTable): string {
+  const zones = (["inside", "between", "beyond"] as const).map((zone) =>
+    element(
+      "span",
+      {},
+      swatch(element("path", { d: "M6,1L11,6L6,11L1,6Z", fill: ZONE_COLOURS[zone] })) +
+        escapeMarkup(LEGEND_WORDS[zone]),
+    ),
+  );
+  if (table.season !== null) {
+    zones.push(
+      element(
+        "span",
+        {},
+        swatch(
+          element("rect", {
+            x: 1,
+            y: 0,
+            width: 10,
+            height: 12,
+            fill: PALETTE.seasonalTint,
+            stroke: "#C9D9E4",
+          }),
+        ) + escapeMarkup(`seasonal lags m = ${table.season}, 2m = ${2 * table.season}`),
+      ),
+    );
+  }
+  return zones.join("");
+}
+
+/**
+ * The batch view: one row per series, the most telling first (ascending q-value; series that
+ * could not be analysed last, with their reason).
+ */
+export function batchTableHtml(batch: BatchCheck): string {
+  const order = batch.rows
+    .map((row, index) => ({ row, index }))
+    .sort((a, b) => {
+      const qa = Number.isNaN(a.row.qValue) ? Infinity : a.row.qValue;
+      const qb = Number.isNaN(b.row.qValue) ? Infinity : b.row.qValue;
+      return qa - qb || a.index - b.index;
+    });
+  const head = element(
+    "tr",
+    {},
+    ["series", "n", "p", "q-value", "verdict"]
+      .map((h) => textElement("th", { scope: "col" }, h))
+      .join(""),
+  );
+  const body = order
+    .map(({ row }) => {
+      const verdict =
+        row.verdict === null
+          ? textElement("td", { title: row.reason }, "not analysed")
+          : element(
+              "td",
+              { title: row.reason, "data-word": row.verdict },
+              escapeMarkup(`${BADGES[row.verdict].shape} ${row.verdict}`),
+            );
+      return element(
+        "tr",
+        { class: row.qValue <= batch.alpha ? "flagged" : undefined },
+        [
+          textElement("th", { scope: "row" }, row.label),
+          textElement("td", {}, String(row.n)),
+          pCell(row.p),
+          pCell(row.qValue),
+          verdict,
+        ].join(""),
+      );
+    })
+    .join("");
+  const caption = `${batch.analysed} series analysed: ${batch.flaggedRaw} with p below ${formatNumber(batch.alpha, 3)} on their own, ${batch.flaggedFdr} still flagged after the Benjamini–Hochberg false-discovery correction (q-value at most ${formatNumber(batch.alpha, 3)}).`;
+  return element(
+    "table",
+    { class: "figures batch" },
+    `${textElement("caption", {}, caption)}<thead>${head}</thead><tbody>${body}</tbody>`,
   );
 }

@@ -3,6 +3,7 @@
  * little arithmetic the pane needs on them: split off the sheet, write an absolute reference for
  * a formula, and tell whether a changed area touches a pinned range.
  */
+import { columnLetters } from "../../src/report";
 
 export interface SheetAddress {
   /** The sheet's name, unquoted ("" when the address names none). */
@@ -100,4 +101,18 @@ export function absoluteReference(address: string): string {
     )
     .join(":");
   return sheet === "" ? absolute : `${quoteSheet(sheet)}!${absolute}`;
+}
+
+/** The absolute reference of each column of a rectangular address, for one formula per column. */
+export function columnReferences(address: string): string[] {
+  const { sheet, range } = splitAddress(address);
+  const [area] = parseAreas(range);
+  if (area === undefined) return [];
+  const references: string[] = [];
+  for (let c = area.firstColumn; c <= area.lastColumn; c++) {
+    const column = columnLetters(c);
+    const part = `$${column}$${area.firstRow + 1}:$${column}$${area.lastRow + 1}`;
+    references.push(sheet === "" ? part : `${quoteSheet(sheet)}!${part}`);
+  }
+  return references;
 }

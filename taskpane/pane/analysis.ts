@@ -1,0 +1,58 @@
+/**
+ * Everything the pane shows about one series, computed by the core and worded by src/report:
+ * the lag table, the squared-deviations table for the third tab, the volatility and bias checks,
+ * and the explanation that draws on all of them. No arithmetic here.
+ */
+import {
+  biasCheck,
+  isEcholotError,
+  lagTable,
+  volatilityCheck,
+  type BiasCheck,
+  type LagOptions,
+  type LagTable,
+  type Series,
+  type VolatilityCheck,
+} from "../../src/core";
+import { explainVerdict, type Explanation } from "../../src/report";
+import { biasFinding, volatilityFinding } from "../../src/report/checkLines";
+
+export interface Analysis {
+  readonly series: Series;
+  readonly table: LagTable;
+  /** The squared deviations' lag table, or why it cannot be computed. */
+  readonly squares: LagTable | string;
+  readonly volatility: VolatilityCheck | undefined;
+  readonly bias: BiasCheck | undefined;
+  readonly explanation: Explanation;
+}
+
+function attempt<T>(compute: () => T): T | string {
+  try {
+    return compute();
+  } catch (error) {
+    if (isEcholotError(error)) return error.message;
+    throw error;
+  }
+}
+
+/** Throws the core's EcholotError when the options or the series are refused. */
+export function analyse(series: Series, options: LagOptions): Analysis {
+  const table = lagTable(series, options);
+  // The squares view uses the plain noise band: the McLeod–Li reference.
+  const squares = attempt(() =>
+    lagTable(series, { ...options, testKind: "squares", bandKind: "noise", fittedParams: 0 }),
+  );
+  const volatility = attempt(() =>
+    volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
+  );
+  const bias = attempt(() => biasCheck(series, { alpha: table.alpha }));
+  const volatilityResult = typeof volatility === "string" ? undefined : volatility;
+  const biasResult = typeof bias === "string" ? undefined : bias;
+  const explanation = explainVerdict(table, {
+    ...(typeof squares === "string" ? {} : { squares }),
+    ...(volatilityResult === undefined ? {} : { volatility: volatilityFinding(volatilityResult) }),
+    ...(biasResult === undefined ? {} : { bias: biasFinding(biasResult) }),
+  });
+  return { series, table, squares, volatility: volatilityResult, bias: biasResult, explanation };
+}

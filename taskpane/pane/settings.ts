@@ -1,0 +1,69 @@
+/**
+ * The settings form as the core's lag options. A blank field means the default; a number is read
+ * strictly ("12abc" is refused, not read as 12). Ranges and their messages are the core's.
+ */
+import { invalid, parseBandKind, parseTestKind, type LagOptions } from "../../src/core";
+
+/** The text of each setting, as the form holds it. */
+export interface SettingsText {
+  readonly maxLag: string;
+  readonly season: string;
+  readonly fittedParams: string;
+  readonly alpha: string;
+  readonly bandKind: string;
+  readonly testKind: string;
+}
+
+function numberSetting(name: string, text: string): number | null {
+  const trimmed = text.trim();
+  if (trimmed === "") return null;
+  const value = Number(trimmed);
+  if (!Number.isFinite(value)) invalid(`${name} must be a number (got "${text}")`);
+  return value;
+}
+
+export function lagOptionsFrom(text: SettingsText): LagOptions {
+  return {
+    maxLag: numberSetting("maxLag", text.maxLag),
+    season: numberSetting("season", text.season),
+    fittedParams: numberSetting("fittedParams", text.fittedParams),
+    alpha: numberSetting("alpha", text.alpha),
+    bandKind: parseBandKind(text.bandKind),
+    testKind: parseTestKind(text.testKind),
+  };
+}
+
+/** The form's current text. */
+export function readSettingsForm(form: HTMLFormElement): SettingsText {
+  const field = (name: string) => {
+    const control = form.elements.namedItem(name);
+    return control instanceof HTMLInputElement || control instanceof HTMLSelectElement
+      ? control.value
+      : "";
+  };
+  return {
+    maxLag: field("maxLag"),
+    season: field("season"),
+    fittedParams: field("fittedParams"),
+    alpha: field("alpha"),
+    bandKind: field("bandKind"),
+    testKind: field("testKind"),
+  };
+}
+
+/** Puts a scenario's suggested settings into the form (blank for the default). */
+export function writeSettingsForm(form: HTMLFormElement, options: LagOptions): void {
+  const set = (name: string, value: string) => {
+    const control = form.elements.namedItem(name);
+    if (control instanceof HTMLInputElement || control instanceof HTMLSelectElement) {
+      control.value = value;
+    }
+  };
+  const text = (x: number | null | undefined) => (x === null || x === undefined ? "" : String(x));
+  set("maxLag", text(options.maxLag));
+  set("season", text(options.season));
+  set("fittedParams", text(options.fittedParams));
+  set("alpha", text(options.alpha));
+  set("bandKind", options.bandKind ?? "noise");
+  set("testKind", options.testKind ?? "ljung-box");
+}

@@ -1,0 +1,167 @@
+/**
+ * The built pane in a real browser (Debian's Chromium through playwright-core), standalone as it
+ * runs outside a workbook: Series F pasted in, the verdict, the evidence chart and the
+ * false-alarm note shown; every request kept on 127.0.0.1; a hostile label shown as text; the
+ * keyboard alone enough. A screenshot is saved under test-output/ for a person to look at.
+ *
+ * With CI=true these tests must run: a missing Chromium fails them. Elsewhere a missing Chromium
+ * skips them, and says so plainly.
+ */
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { builtPane, CHROMIUM, INSTALL_HINT, ROOT, servePane, type PaneServer } from "./paneServer";
+
+const haveChromium = existsSync(CHROMIUM);
+const inCi = process.env.CI === "true";
+
+if (!haveChromium && !inCi) {
+  console.log(
+    `SKIPPED: the browser tests of the pane did not run: no Chromium at ${CHROMIUM}. To run them, ${INSTALL_HINT}.`,
+  );
+}
+
+const SERIES_F = readFileSync(join(ROOT, "test", "fixtures", "series-f.csv"), "utf8");
+const XSS_LABEL = "<img src=x onerror=alert(1)>";
+const OUTPUT = join(ROOT, "test-output");
+
+describe.skipIf(!haveChromium && !inCi)("the built pane in a browser, standalone", () => {
+  let server: PaneServer;
+  let context: BrowserContext;
+  let page: Page;
+  let profile: string;
+  const requests: string[] = [];
+  const dialogs: string[] = [];
+  const problems: string[] = [];
+
+  beforeAll(async () => {
+    if (!haveChromium)
+      throw new Error(`CI=true but there is no Chromium at ${CHROMIUM}: ${INSTALL_HINT}`);
+    server = await servePane(builtPane());
+    profile = mkdtempSync(join(tmpdir(), "echolot-chromium-"));
+    context = await chromium.launchPersistentContext(profile, {
+      executablePath: CHROMIUM,
+      headless: true,
+      viewport: { width: 360, height: 900 },
+      args: [
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-quic",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+      ],
+    });
+    context.on("request", (request) => requests.push(request.url()));
+    // Anything not on 127.0.0.1 fails at once, so a request out could not succeed either.
+    await context.route("**/*", (route) =>
+      new URL(route.request().url()).hostname === "127.0.0.1"
+        ? route.continue()
+        : route.abort("blockedbyclient"),
+    );
+    page = context.pages()[0] ?? (await context.newPage());
+    page.on("dialog", (dialog) => {
+      dialogs.push(dialog.message());
+      void dialog.dismiss();
+    });
+    page.on("pageerror", (error) => problems.push(`page error: ${error.message}`));
+    page.on("console", (message) => {
+      if (message.type() === "error" || /Content Security Policy/i.test(message.text())) {
+        problems.push(`console ${message.type()}: ${message.text()}`);
+      }
+    });
+    await page.goto(`${server.origin}/taskpane.html`);
+    await page.locator("#data-panel").waitFor({ state: "visible" });
+  }, 180_000);
+
+  afterAll(async () => {
+    await context?.close();
+    await server?.close();
+    if (profile !== undefined) rmSync(profile, { recursive: true, force: true });
+  });
+
+  async function paste(text: string): Promise<void> {
+    await page.fill("#paste-box", text);
+    await page.click("#paste-read");
+    await page.locator("#result").waitFor({ state: "visible" });
+  }
+
+  it("shows Series F's verdict, an evidence chart with 10 diamonds and the false-alarm note", async () => {
+    await paste(SERIES_F);
+    await expect.poll(() => page.textContent("#series-label")).toBe("yield");
+    expect(await page.textContent("#verdict-badge")).toContain("structure");
+    expect(await page.locator("#verdict-badge svg").count()).toBe(1);
+    expect(await page.locator("#chart svg.evidence-chart path.lag").count()).toBe(10);
+    expect(await page.locator("#chart svg rect.corridor").count()).toBe(2);
+    expect(await page.locator("#ribbon svg rect.joint-cell").count()).toBe(10);
+    const explanation = (await page.textContent("#explanation")) ?? "";
+    expect(explanation).toContain(
+      "10 lags tested at 5%: about 0.5 would cross the band by chance even for pure noise",
+    );
+    expect(explanation).toContain("A verdict is a statistical screen, not a decision");
+    expect(await page.textContent("#series-meta")).toContain("n = 70 · no gaps");
+    mkdirSync(OUTPUT, { recursive: true });
+    await page.screenshot({ path: join(OUTPUT, "pane-series-f.png"), fullPage: true });
+  });
+
+  it("repeats the chart as a text table and an aria description", async () => {
+    const rows = await page.locator("#figures table.figures tbody tr").count();
+    expect(rows).toBe(10);
+    const description = (await page.textContent("#chart-description")) ?? "";
+    expect(description).toContain("Lags beyond the all-lags corridor: 1.");
+    expect(await page.getAttribute("#chart-panel", "aria-describedby")).toBe("chart-description");
+  });
+
+  it("works from the keyboard: arrow keys switch the chart tabs", async () => {
+    await page.focus("#tab-correlation");
+    await page.keyboard.press("ArrowRight");
+    expect(await page.getAttribute("#tab-partial", "aria-selected")).toBe("true");
+    expect(await page.locator("#chart svg.view-partial").count()).toBe(1);
+    await page.keyboard.press("ArrowRight");
+    expect(await page.locator("#chart svg.view-squares path.lag").count()).toBe(10);
+    await page.keyboard.press("Home");
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe("tab-correlation");
+    // Settings change from the keyboard too: a season of 3 tags lags 3 and 6.
+    await page.focus("#set-season");
+    await page.keyboard.type("3");
+    await page.keyboard.press("Tab");
+    await expect.poll(() => page.locator("#chart svg text.season-tag").count()).toBe(2);
+    await page.fill("#set-season", "");
+    await page.dispatchEvent("#set-season", "change");
+    await expect.poll(() => page.locator("#chart svg text.season-tag").count()).toBe(0);
+  });
+
+  it("shows a hostile label as text, and no dialog fires", async () => {
+    const values = SERIES_F.trim().split(/\r?\n/).slice(1).join("\n");
+    await paste(`${XSS_LABEL}\n${values}`);
+    await expect.poll(() => page.textContent("#series-label")).toBe(XSS_LABEL);
+    expect(await page.locator("img").count()).toBe(0);
+    expect(await page.locator("#chart svg desc").textContent()).toContain(XSS_LABEL);
+    await page.waitForTimeout(300);
+    expect(dialogs).toEqual([]);
+  });
+
+  it("opens a demo scenario with its settings and a batch view sorted by q-value", async () => {
+    await page.selectOption("#demo-pick", "ternpoint");
+    await page.click("#demo-open");
+    await expect.poll(() => page.locator("#batch table tbody tr").count()).toBe(24);
+    expect(await page.inputValue("#set-season")).toBe("13");
+    const q = await page.locator("#batch table tbody tr td:nth-child(4)").allTextContents();
+    const numbers = q.map((t) => (t === "< 1e-300" ? 0 : Number(t)));
+    expect(numbers.every((v, i) => i === 0 || v >= (numbers[i - 1] as number))).toBe(true);
+    await page.selectOption("#column-pick", { label: "Copper Kettle" });
+    await expect.poll(() => page.textContent("#series-label")).toBe("Copper Kettle");
+    await page.screenshot({ path: join(OUTPUT, "pane-demo-ternpoint.png"), fullPage: true });
+  });
+
+  it("made no request beyond 127.0.0.1, broke no content-security rule and raised no page error", () => {
+    expect(requests.length).toBeGreaterThan(0);
+    const outside = requests.filter((url) => new URL(url).hostname !== "127.0.0.1");
+    expect(outside, `requests: ${requests.join(", ")}`).toEqual([]);
+    expect(problems).toEqual([]);
+  });
+});
