@@ -7,11 +7,12 @@
 import { TEST_NAMES, type LagTable } from "../core";
 import { escapeMarkup } from "./escape";
 import { evidenceChartSvg } from "./evidenceChart";
-import { explainVerdict, type ExplainContext } from "./explain";
+import { explainVerdict, type ExplainContext, type Explanation } from "./explain";
 import { badgeHtml, explanationHtml, figuresTableHtml } from "./htmlParts";
 import { jointRibbonSvg } from "./jointRibbon";
 import { VIEW_NAMES, type ChartView } from "./lagViews";
 import { PALETTE } from "./palette";
+import type { SeriesReport } from "./seriesReport";
 import { element, textElement } from "./svg";
 
 export interface ReportInput {
@@ -21,6 +22,8 @@ export interface ReportInput {
   readonly squares?: LagTable;
   /** Extra findings (volatility, bias) for the explanation. */
   readonly context?: Omit<ExplainContext, "squares">;
+  /** The explanation, when the caller already has it (seriesReport); else it is built here. */
+  readonly explanation?: Explanation;
   /** Where the data came from, shown under the title (a file name, a range address). */
   readonly source?: string;
 }
@@ -54,10 +57,9 @@ function viewSection(table: LagTable, view: ChartView): string {
 
 export function reportHtml(input: ReportInput): string {
   const { table, squares } = input;
-  const explanation = explainVerdict(table, {
-    ...input.context,
-    ...(squares === undefined ? {} : { squares }),
-  });
+  const explanation =
+    input.explanation ??
+    explainVerdict(table, { ...input.context, ...(squares === undefined ? {} : { squares }) });
   const name = table.label === "" ? "Series" : table.label;
   const settings = [
     `${table.maxLag} lags`,
@@ -112,4 +114,14 @@ export function reportHtml(input: ReportInput): string {
     "</html>",
     "",
   ].join("\n");
+}
+
+/** The HTML report of a series report (the pane's and the CLI's one call). */
+export function seriesReportHtml(report: SeriesReport, source?: string): string {
+  return reportHtml({
+    table: report.table,
+    ...(typeof report.squares === "string" ? {} : { squares: report.squares }),
+    explanation: report.explanation,
+    ...(source === undefined ? {} : { source }),
+  });
 }

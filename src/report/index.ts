@@ -10,3 +10,4 @@ export * from "./explain";
 export * from "./htmlParts";
 export * from "./htmlReport";
 export * from "./placedReport";
+export * from "./seriesReport";

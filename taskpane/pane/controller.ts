@@ -4,8 +4,14 @@
  * core and redraws through src/report. Workbook actions are wired by the host glue on top.
  */
 import { batchCheck, isEcholotError, type LagOptions, type Series } from "../../src/core";
-import { batchTableHtml, reportHtml, summaryText, type ChartView } from "../../src/report";
-import { analyse, type Analysis } from "./analysis";
+import {
+  batchTableHtml,
+  seriesReport,
+  seriesReportHtml,
+  summaryText,
+  type ChartView,
+  type SeriesReport,
+} from "../../src/report";
 import { copyText } from "./clipboard";
 import { lagOptionsFrom, readSettingsForm, writeSettingsForm } from "./settings";
 import { wireTabs } from "./tabs";
@@ -25,13 +31,13 @@ export interface PaneInput {
 export interface Shown {
   readonly input: PaneInput;
   readonly index: number;
-  readonly analysis: Analysis;
+  readonly analysis: SeriesReport;
 }
 
 export class PaneController {
   private input: PaneInput | null = null;
   private index = 0;
-  private analysis: Analysis | null = null;
+  private analysis: SeriesReport | null = null;
   private view: ChartView = "correlation";
   private settingsTimer: ReturnType<typeof setTimeout> | undefined;
   /** Called after every successful redraw (the host glue enables its buttons). */
@@ -91,7 +97,7 @@ export class PaneController {
       options = lagOptionsFrom(readSettingsForm(this.el.settings));
       const series = input.series[this.index] ?? input.series[0];
       if (series === undefined) throw new Error("no series to show");
-      this.analysis = analyse(series, options);
+      this.analysis = seriesReport(series, options);
       showMessage(this.el.settingsProblem, null);
     } catch (error) {
       if (!isEcholotError(error)) throw error;
@@ -187,12 +193,8 @@ export class PaneController {
   private saveReport(): void {
     const shown = this.shown;
     if (shown === null) return;
-    const { table, squares } = shown.analysis;
-    const html = reportHtml({
-      table,
-      ...(typeof squares === "string" ? {} : { squares }),
-      source: this.sourceText(shown.input),
-    });
+    const { table } = shown.analysis;
+    const html = seriesReportHtml(shown.analysis, this.sourceText(shown.input));
     const link = document.createElement("a");
     link.href = URL.createObjectURL(new Blob([html], { type: "text/html" }));
     link.download = `echolot-${(table.label || "series").replace(/[^A-Za-z0-9_-]+/g, "-")}.html`;

@@ -12,8 +12,8 @@ import {
   zoneLegendHtml,
   VIEW_NAMES,
   type ChartView,
+  type SeriesReport,
 } from "../../src/report";
-import type { Analysis } from "./analysis";
 
 export interface PaneElements {
   readonly main: HTMLElement;
@@ -96,7 +96,7 @@ export function showMessage(target: HTMLElement, message: string | null): void {
   target.hidden = message === null;
 }
 
-function gapsText(analysis: Analysis): string {
+function gapsText(analysis: SeriesReport): string {
   const { table } = analysis;
   const gaps = table.gaps === 0 ? "no gaps" : `${table.gaps} gap${table.gaps === 1 ? "" : "s"}`;
   return `n = ${table.n} · ${gaps}`;
@@ -104,7 +104,7 @@ function gapsText(analysis: Analysis): string {
 
 export function renderAnalysis(
   el: PaneElements,
-  analysis: Analysis,
+  analysis: SeriesReport,
   view: ChartView,
   source: string,
 ): void {
@@ -119,7 +119,7 @@ export function renderAnalysis(
 }
 
 /** The chart, its description, its key and its figures table for one tab. */
-export function renderView(el: PaneElements, analysis: Analysis, view: ChartView): void {
+export function renderView(el: PaneElements, analysis: SeriesReport, view: ChartView): void {
   for (const tab of el.tabs) {
     const selected = tab.dataset.view === view;
     tab.setAttribute("aria-selected", String(selected));

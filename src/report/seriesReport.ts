@@ -1,7 +1,7 @@
 /**
- * Everything the pane shows about one series, computed by the core and worded by src/report:
- * the lag table, the squared-deviations table for the third tab, the volatility and bias checks,
- * and the explanation that draws on all of them. No arithmetic here.
+ * Everything the pane and the HTML report show about one series, computed by the core and worded
+ * here: the lag table, the squared-deviations table (the third chart view), the volatility and
+ * bias checks, and the explanation that draws on all of them. No arithmetic of its own.
  */
 import {
   biasCheck,
@@ -13,11 +13,11 @@ import {
   type LagTable,
   type Series,
   type VolatilityCheck,
-} from "../../src/core";
-import { explainVerdict, type Explanation } from "../../src/report";
-import { biasFinding, volatilityFinding } from "../../src/report/checkLines";
+} from "../core";
+import { biasFinding, volatilityFinding } from "./checkLines";
+import { explainVerdict, type Explanation } from "./explain";
 
-export interface Analysis {
+export interface SeriesReport {
   readonly series: Series;
   readonly table: LagTable;
   /** The squared deviations' lag table, or why it cannot be computed. */
@@ -37,7 +37,7 @@ function attempt<T>(compute: () => T): T | string {
 }
 
 /** Throws the core's EcholotError when the options or the series are refused. */
-export function analyse(series: Series, options: LagOptions): Analysis {
+export function seriesReport(series: Series, options: LagOptions): SeriesReport {
   const table = lagTable(series, options);
   // The squares view uses the plain noise band: the McLeod–Li reference.
   const squares = attempt(() =>
