@@ -7,6 +7,7 @@ import { runAudit } from "./audit";
 import { runBatch } from "./batch";
 import { runCheck } from "./check";
 import { runDemo } from "./demo";
+import { runReport } from "./report";
 import { UsageError } from "./errors";
 
 const USAGE = `usage:
@@ -15,6 +16,7 @@ const USAGE = `usage:
   echolot audit FILE.csv --horizon H [--season M] [--alpha A] [--lags K] [--json]
   echolot batch FILE.csv [--lags K] [--season M] [--fitted P] [--alpha A]
                          [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
+  echolot report FILE.csv [same options as check] --out report.html
   echolot demo`;
 
 type Command = (argv: readonly string[]) => string;
@@ -23,6 +25,7 @@ const COMMANDS: Readonly<Record<string, Command>> = {
   check: runCheck,
   audit: runAudit,
   batch: runBatch,
+  report: runReport,
   demo: () => runDemo(),
 };
 
