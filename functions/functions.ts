@@ -9,16 +9,28 @@
  */
 /* eslint-disable @typescript-eslint/no-explicit-any -- the host hands over untyped cells */
 import {
+  batchCheck,
+  biasCheck,
+  crossCorrelation,
+  forecastAudit,
+  invalid,
   lagTable,
+  normalityCheck,
   parseBandKind,
   parseTestKind,
+  placeOnCells,
   requireValues,
   resolveLagCount,
+  rollingCheck,
+  runsCheck,
+  seriesFromValues,
+  volatilityCheck,
   type LagTable,
+  type Series,
 } from "../src/core";
 import { optionalKeyword, optionalNumber, readSeries } from "./arguments";
 import { cellFunction } from "./cellFunction";
-import { column, row } from "./shape";
+import { column, numberCell, row, type Cell } from "./shape";
 
 /**
  * Autocovariance at lags 0 to maxLag (divide-by-n); spills a column, lag 0 (the variance) first.
@@ -180,4 +192,195 @@ function analyse(series: unknown, args: CellArguments): LagTable {
     fittedParams: optionalNumber("fittedParams", args.fittedParams),
     bandKind: parseBandKind(optionalKeyword(args.bandKind)),
   });
+}
+
+/**
+ * Volatility clustering: Engle's LM test that the squared deviations depend on their last lags; spills LM, df, p.
+ * @customfunction SERIESVOLCHECK
+ * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
+ * @param [lags] Lagged squares in the regression, a whole number from 1 to n − 1. Default: min(10, n/5).
+ * @returns One row: LM statistic (rows used × R²), degrees of freedom, p-value.
+ */
+export function seriesVolCheck(series: any[][], lags?: number): any[][] {
+  return cellFunction(() => {
+    const check = volatilityCheck(readSeries(series), { lags: optionalNumber("lags", lags) });
+    return row(check.lm, check.df, check.p);
+  });
+}
+
+/**
+ * Bias: is the mean zero? Mean with a Newey–West (HAC) standard error; spills mean, se, t, p.
+ * @customfunction SERIESBIASCHECK
+ * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
+ * @param [hacLags] Lags the standard error allows for, a whole number from 0 to n − 1. Default: 4(n/100)^(2/9), rounded down.
+ * @returns One row: mean, HAC standard error, t statistic, two-sided p-value.
+ */
+export function seriesBiasCheck(series: any[][], hacLags?: number): any[][] {
+  return cellFunction(() => {
+    const check = biasCheck(readSeries(series), { hacLags: optionalNumber("hacLags", hacLags) });
+    return row(check.mean, check.se, check.t, check.p);
+  });
+}
+
+/**
+ * Forecast audit of h-step-ahead errors: bias, dependence beyond lag horizon − 1, verdict; spills a two-column table.
+ * @customfunction SERIESFORECASTAUDIT
+ * @param errors One row or column of forecast errors; blanks and #N/A are gaps, a text first cell is the label.
+ * @param [horizon] Periods ahead the forecasts were made, a whole number from 1 (lags below it are expected and not counted). Default: 1.
+ * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched.
+ * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
+ * @returns Rows of name and value: bias mean, standard error, t, p; dependence lags, Q, df, p; verdict and reason.
+ */
+export function seriesForecastAudit(
+  errors: any[][],
+  horizon?: number,
+  season?: number,
+  alpha?: number,
+): any[][] {
+  return cellFunction(() => {
+    const audit = forecastAudit(readSeries(errors, "errors"), {
+      horizon: optionalNumber("horizon", horizon) ?? 1,
+      season: optionalNumber("season", season),
+      alpha: optionalNumber("alpha", alpha),
+    });
+    const { bias, dependenceTest: test } = audit;
+    return [
+      ["bias: mean error", numberCell(bias.mean)],
+      [`bias: Newey–West se (${bias.hacLags} lags)`, numberCell(bias.se)],
+      ["bias: t", numberCell(bias.t)],
+      ["bias: p", numberCell(bias.p)],
+      ["dependence: lags tested", `${test.firstLag}–${test.maxLag}`],
+      ["dependence: Q", numberCell(test.q)],
+      ["dependence: df", test.df],
+      ["dependence: p", numberCell(test.p)],
+      ["verdict", audit.verdict.word],
+      ["reason", audit.verdict.reason],
+    ];
+  });
+}
+
+/**
+ * Noise check of every column of a block, with Benjamini–Hochberg q-values across them; spills a header and one row per column.
+ * @customfunction SERIESBATCHCHECK
+ * @param block A block with one series per column (at least 2); a text first row holds the labels; blanks and #N/A are gaps.
+ * @param [maxLag] Lags tested, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
+ * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched.
+ * @param [fittedParams] ARMA parameters fitted to get these residuals, from 0 (default).
+ * @param [alpha] Significance level, for the verdicts and the false-discovery rate, between 0 and 1. Default: 0.05.
+ * @returns Header, then per column: label, n, Q, df, p, q-value, verdict.
+ */
+export function seriesBatchCheck(
+  block: any[][],
+  maxLag?: number,
+  season?: number,
+  fittedParams?: number,
+  alpha?: number,
+): any[][] {
+  return cellFunction(() => {
+    const batch = batchCheck(readBlock(block), {
+      maxLag: optionalNumber("maxLag", maxLag),
+      season: optionalNumber("season", season),
+      fittedParams: optionalNumber("fittedParams", fittedParams),
+      alpha: optionalNumber("alpha", alpha),
+    });
+    const header: Cell[] = ["label", "n", "Q", "df", "p", "q-value", "verdict"];
+    const body = batch.rows.flatMap((r) =>
+      row(r.label, r.n, r.q, r.df, r.p, r.qValue, r.verdict ?? `not analysed: ${r.reason}`),
+    );
+    return [header, ...body];
+  });
+}
+
+/**
+ * Cross-correlation of two aligned series at lags −maxLag to maxLag, with the noise band; spills a header and 2·maxLag + 1 rows.
+ * @customfunction SERIESCROSSCORR
+ * @param x One row or column of numbers; blanks and #N/A are gaps (of the pair), a text first cell is the label.
+ * @param y A range of the same size as x, row by row the same periods.
+ * @param [maxLag] Highest lag each way, a whole number from 1 to n − 1. Default: min(10, n/5).
+ * @returns Header, then per lag: lag (positive when x leads y), cross-correlation, band half-width.
+ */
+export function seriesCrossCorr(x: any[][], y: any[][], maxLag?: number): any[][] {
+  return cellFunction(() => {
+    const result = crossCorrelation(readSeries(x, "x"), readSeries(y, "y"), {
+      maxLag: optionalNumber("maxLag", maxLag),
+    });
+    const header: Cell[] = ["lag", "cross-correlation", "band"];
+    return [header, ...result.rows.flatMap((r) => row(r.lag, r.correlation, r.band))];
+  });
+}
+
+/**
+ * Rolling check: Ljung–Box p of the window ending at each row, so a change shows where it starts; spills beside the input.
+ * @customfunction SERIESROLLCHECK
+ * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
+ * @param window Rows per window, a whole number from 3 to the length of the series.
+ * @param [lags] Lags tested in each window, a whole number from 1 to window − 1. Default: min(10, window/5).
+ * @param [step] Report every step rows, a whole number from 1. Default: 1.
+ * @returns Aligned with the input, row for row: the joint-test p of the window ending there; empty before the first full window.
+ */
+export function seriesRollCheck(
+  series: any[][],
+  window: number,
+  lags?: number,
+  step?: number,
+): any[][] {
+  return cellFunction(() => {
+    const parsed = readSeries(series);
+    const result = rollingCheck(parsed, {
+      window: optionalNumber("window", window) as number,
+      lags: optionalNumber("lags", lags),
+      step: optionalNumber("step", step),
+    });
+    const placed = placeOnCells(result.p, parsed);
+    const isRow = series.length === 1 && (series[0]?.length ?? 0) > 1;
+    return isRow ? [Array.from(placed, numberCell)] : column(placed);
+  });
+}
+
+/**
+ * Runs about the median (Wald–Wolfowitz): too few runs means drift, too many alternation; spills runs, expected runs, p.
+ * @customfunction SERIESRUNSCHECK
+ * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
+ * @returns One row: runs, expected runs, two-sided p-value.
+ */
+export function seriesRunsCheck(series: any[][]): any[][] {
+  return cellFunction(() => {
+    const check = runsCheck(readSeries(series));
+    return row(check.runs, check.expected, check.p);
+  });
+}
+
+/**
+ * Normality by Jarque–Bera (skewness and kurtosis); spills the statistic and p.
+ * @customfunction SERIESNORMALCHECK
+ * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
+ * @returns One row: Jarque–Bera statistic, p-value.
+ */
+export function seriesNormalCheck(series: any[][]): any[][] {
+  return cellFunction(() => {
+    const check = normalityCheck(readSeries(series));
+    return row(check.jb, check.p);
+  });
+}
+
+/** A block's columns as series, each read by the intake rules (a text first cell is its label). */
+function readBlock(block: unknown): Series[] {
+  if (!Array.isArray(block) || !block.every((r) => Array.isArray(r))) {
+    invalid("block must be a range of cells with one series per column, such as B1:F241");
+  }
+  const rows = block as readonly (readonly unknown[])[];
+  const columns = Math.max(0, ...rows.map((r) => r.length));
+  const series: Series[] = [];
+  for (let c = 0; c < columns; c++) {
+    series.push(
+      seriesFromValues(
+        rows.map((r) => r[c]),
+        {
+          label: `column ${c + 1}`,
+          describePosition: (i) => `row ${i + 1}, column ${c + 1} of the block`,
+        },
+      ),
+    );
+  }
+  return series;
 }
