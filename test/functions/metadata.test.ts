@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { readFunctionsJson, type FunctionMetadata } from "./host";
+import { EXTRA_FUNCTIONS } from "./extra-functions";
 
 type Kind = "series" | "number" | "keyword";
 const SIGNATURES: Record<string, readonly [string, Kind][]> = {
@@ -93,8 +94,10 @@ describe("dist/functions.json", () => {
     expect(metadata.allowErrorForDataTypeAny).toBe(true);
   });
 
-  it("lists exactly the seven functions of the cell-function set", () => {
-    expect(metadata.functions.map((f) => f.id).sort()).toEqual(Object.keys(SIGNATURES).sort());
+  it("lists exactly the seven functions of the cell-function set and the eight side checks", () => {
+    expect(metadata.functions.map((f) => f.id).sort()).toEqual(
+      [...Object.keys(SIGNATURES), ...EXTRA_FUNCTIONS].sort(),
+    );
   });
 
   it("uses only DESIGN.md's function ids and argument names", () => {
