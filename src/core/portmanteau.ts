@@ -103,3 +103,23 @@ export function jointTestAt(kind: TestKind, cumulative: CumulativeJointTest): Jo
     p: cumulative.p[last] as number,
   };
 }
+
+/**
+ * The joint test over all K lags alone: the same terms summed in the same order as the
+ * cumulative test, so it equals `jointTestAt` of it exactly, at one χ² tail instead of K (for
+ * the noise and block checks, which need only the verdict).
+ */
+export function jointTest(input: JointTestInput): JointTest {
+  const { kind, n, correlation, robustVariance, fittedParams } = input;
+  const total = new CompensatedSum();
+  let used = 0;
+  for (let k = 1; k < correlation.length; k++) {
+    const r = correlation[k] as number;
+    if (Number.isFinite(r)) {
+      total.add(term(kind, n, k, r, robustVariance));
+      used++;
+    }
+  }
+  const df = used - (kind === "squares" ? 0 : fittedParams);
+  return { test: kind, q: total.value, df, p: df > 0 ? chiSquareUpperTail(total.value, df) : NaN };
+}
