@@ -10,10 +10,11 @@
  *   expected share of false flags among the flagged at most alpha for independent series.
  * A series that cannot be analysed (too few values, constant) keeps its row with the reason and
  * NaN figures, and stays out of the family of p-values; when no series can be analysed, the first
- * refusal is thrown instead. Cost: one lag table per series.
+ * refusal is thrown instead. Cost: one noise check (the lag table's verdict, without its
+ * per-lag columns) per series.
  */
 import { invalid, isEcholotError } from "./errors";
-import { lagTable } from "./lagTable";
+import { noiseCheck } from "./lagTable";
 import { benjaminiHochberg } from "./multiplicity";
 import { resolveAlpha, type LagOptions } from "./options";
 import type { Series, VerdictWord } from "./types";
@@ -56,7 +57,7 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
   const partial = seriesList.map((series, index) => {
     const label = series.label === "" ? `series ${index + 1}` : series.label;
     try {
-      const table = lagTable(series, options);
+      const table = noiseCheck(series, options);
       const { q, df, p } = table.joint;
       return {
         label,
