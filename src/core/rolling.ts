@@ -16,7 +16,7 @@
  * moved more than 100 standard deviations from μ₀, as after a level shift); a window still that
  * degenerate after re-centring is computed two-pass from scratch (autocovariance.ts), and is NaN if
  * constant. Cost O(n·K) (amortised: one recomputation per `window` positions, plus one per such
- * jump), plus K upper-tail evaluations per window reported.
+ * jump), plus one χ² upper tail per window reported.
  *
  * NaN: before the first full window, between steps, and for a window with fewer than max(3, K + 1) values
  * or a constant one.
@@ -24,7 +24,7 @@
 import { autocorrelation } from "./autocovariance";
 import { defaultMaxLag } from "./defaultLags";
 import { invalid, isEcholotError } from "./errors";
-import { cumulativeJointTest } from "./portmanteau";
+import { jointTest } from "./portmanteau";
 import type { Series } from "./types";
 
 export interface RollingOptions {
@@ -97,13 +97,7 @@ export function rollingCheck(series: Series, options: RollingOptions): RollingCh
         if (!exactCorrelations(series, start, end, K, correlation)) continue;
       }
     }
-    const joint = cumulativeJointTest({
-      kind: "ljung-box",
-      n: sums.m,
-      correlation,
-      fittedParams: 0,
-    });
-    p[end] = joint.p[K - 1] as number;
+    p[end] = jointTest({ kind: "ljung-box", n: sums.m, correlation, fittedParams: 0 }).p;
   }
   return { window, lags: K, step, p };
 }
