@@ -1,5 +1,5 @@
-// Bundles the CLI (and the demo generator) into self-contained CommonJS files under build/, so
-// `npx echolot` works right after `npm ci` (the `prepare` script runs this).
+// Bundles the CLI, the demo generator and the demo workbook writer into self-contained CommonJS
+// files under build/, so `npx echolot` works right after `npm ci` (the `prepare` script runs this).
 import { build } from "esbuild";
 
 const common = {
@@ -20,4 +20,9 @@ await build({
   ...common,
   entryPoints: ["scripts/generate-demo.ts"],
   outfile: "build/generate-demo.cjs",
+});
+await build({
+  ...common,
+  entryPoints: ["scripts/build-demo-workbook.ts"],
+  outfile: "build/build-demo-workbook.cjs",
 });

@@ -107,7 +107,11 @@ export function uniqueSheetName(label: string, existing: readonly string[]): str
  * `=ECHOLOT.NAME(series,arg,…)`: numbers as written, keywords quoted, an omitted argument left
  * empty between commas (the host passes it as null) and trailing omitted ones dropped.
  */
-function call(name: string, series: string, args: readonly (string | number | null)[]): string {
+export function echolotFormula(
+  name: string,
+  series: string,
+  args: readonly (string | number | null)[],
+): string {
   const list = args.map((a) => (a === null ? "" : typeof a === "number" ? String(a) : `"${a}"`));
   while (list.length > 0 && list[list.length - 1] === "") list.pop();
   return `=ECHOLOT.${name}(${[series, ...list].join(",")})`;
@@ -124,9 +128,9 @@ export function liveReportFormulas(table: LagTable, source: ReportSource): LiveF
   const series = source.reference;
   const { maxLag, alpha, season, fittedParams, bandKind, testKind } = table;
   return {
-    noiseCheck: call("SERIESNOISECHECK", series, [maxLag, season, fittedParams, alpha]),
-    lagTable: call("SERIESLAGTABLE", series, [maxLag, alpha, bandKind, season]),
-    portmanteau: call("SERIESPORTMANTEAU", series, [maxLag, fittedParams, testKind]),
+    noiseCheck: echolotFormula("SERIESNOISECHECK", series, [maxLag, season, fittedParams, alpha]),
+    lagTable: echolotFormula("SERIESLAGTABLE", series, [maxLag, alpha, bandKind, season]),
+    portmanteau: echolotFormula("SERIESPORTMANTEAU", series, [maxLag, fittedParams, testKind]),
   };
 }
 
