@@ -109,7 +109,7 @@ describe("echolot batch", () => {
 
 describe("echolot audit", () => {
   it("audit(demo, horizon 1) calls every under-reacting and biased blend structure", () => {
-    const doc = json<Document & { series: (SeriesEntry & { bias: { p: number } })[] }>([
+    const doc = json<{ series: readonly (SeriesEntry & { bias: { p: number } })[] }>([
       "audit",
       DEMO,
       "--horizon",
