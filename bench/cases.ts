@@ -6,6 +6,8 @@ import {
   autocorrelation,
   centre,
   directLagProductSums,
+  FFT_STEP_COST,
+  lagSumCosts,
   lagTable,
   prefersFft,
   seriesFromCells,
@@ -175,7 +177,8 @@ export function growthCase(series: Series): CaseResult {
 /**
  * Where the transform path overtakes the direct one, at n = 2^16: both timed at a ladder of K.
  * ratio = the automatic choice's time over the faster path's, at worst over the ladder; the
- * detail gives the measured crossover and the step cost it implies (FFT_STEP_COST).
+ * detail gives the measured crossover and the step cost the timings imply (FFT_STEP_COST in
+ * autocovariance.ts is set from it).
  */
 export function crossoverCase(series: Series): CaseResult {
   const n = 65_536;
@@ -189,6 +192,7 @@ export function crossoverCase(series: Series): CaseResult {
   let worst = 0;
   let measuredCrossover: number | null = null;
   const rows: { k: number; directMs: number; fftMs: number; automatic: string }[] = [];
+  const impliedStepCosts: number[] = [];
   for (const k of ladder) {
     const timing = interleaved(
       () => fftLagProductSums(d, k),
@@ -198,6 +202,11 @@ export function crossoverCase(series: Series): CaseResult {
     const automatic = prefersFft(n, k) ? timing.caseMs : timing.floorMs;
     worst = Math.max(worst, automatic / Math.min(timing.caseMs, timing.floorMs));
     if (measuredCrossover === null && timing.caseMs < timing.floorMs) measuredCrossover = k;
+    // The step cost these timings imply: time per transform step over time per multiply-add.
+    const cost = lagSumCosts(n, k);
+    impliedStepCosts.push(
+      FFT_STEP_COST * (timing.caseMs / timing.floorMs) * (cost.direct / cost.fft),
+    );
     rows.push({
       k,
       directMs: timing.floorMs,
@@ -215,6 +224,12 @@ export function crossoverCase(series: Series): CaseResult {
     ratio: worst,
     target: 1.25,
     measure: "automatic path time / faster path's, worst K on the ladder",
-    detail: { measuredCrossover, modelCrossover, ladder: rows },
+    detail: {
+      measuredCrossover,
+      modelCrossover,
+      stepCost: FFT_STEP_COST,
+      impliedStepCost: median(impliedStepCosts),
+      ladder: rows,
+    },
   });
 }
