@@ -19,20 +19,34 @@ function byId<T extends HTMLElement>(id: string): T {
   return found as T;
 }
 
-/** One series per column of a block; a single row or column is one series. */
-export function seriesOfReading(read: RangeRead): Series[] {
-  if (read.rows <= 1 || read.columns <= 1) return [seriesFromCells(read.cells)];
-  const series: Series[] = [];
-  for (let c = 0; c < read.columns; c++) {
-    series.push(seriesFromCells(read.cells.map((row) => [row[c]])));
-  }
-  return series;
+export interface ReadingSeries {
+  readonly series: Series[];
+  /** The reference a live report's formulas use, one per series. */
+  readonly references: string[];
 }
 
-/** The reference a live report's formulas use, one per series of `seriesOfReading`. */
-export function referencesOfReading(read: RangeRead): string[] {
-  if (read.rows <= 1 || read.columns <= 1) return [absoluteReference(read.address)];
-  return columnReferences(read.address);
+function isBlank(cell: unknown): boolean {
+  return cell === "" || cell === null || cell === undefined;
+}
+
+/**
+ * One series per column of a block (a column with no value at all is left out); a single row or
+ * column is one series.
+ */
+export function seriesOfReading(read: RangeRead): ReadingSeries {
+  if (read.rows <= 1 || read.columns <= 1) {
+    return { series: [seriesFromCells(read.cells)], references: [absoluteReference(read.address)] };
+  }
+  const columnRefs = columnReferences(read.address);
+  const series: Series[] = [];
+  const references: string[] = [];
+  for (let c = 0; c < read.columns; c++) {
+    const cells = read.cells.map((row) => [row[c]]);
+    if (cells.every(([cell]) => isBlank(cell))) continue;
+    series.push(seriesFromCells(cells));
+    references.push(columnRefs[c] as string);
+  }
+  return { series, references };
 }
 
 function messageOf(error: unknown): string {
@@ -71,10 +85,11 @@ export async function startHost(
           ? `Following the selection: ${read.address}`
           : `Pinned: ${pinned} (reading ${read.address})`;
       try {
+        const { series, references } = seriesOfReading(read);
         pane.show({
-          series: seriesOfReading(read),
+          series,
           source: read.address,
-          references: referencesOfReading(read),
+          references,
           tooLargeForFunctions: read.tooLargeForFunctions,
         });
       } catch (error) {
