@@ -26,22 +26,30 @@ const LAG_GROUP = 6;
 /**
  * s_k = Σ_t a_t a_{t−k} for k = 0..maxLag, the direct way: O(n·K).
  *
- * Cache-blocked and fused: the series is walked in blocks of `BLOCK` positions; within a block,
- * each group of six lags is summed in one loop that reuses every loaded value six times (a
- * sliding window a_{t−k0}, …, a_{t−k0−5}). Block sums are plain and are added across blocks with
- * Neumaier compensation (sums.ts).
+ * Cache-blocked and fused: the series is walked in blocks of `BLOCK` positions (the last one up
+ * to 1.5·BLOCK); within a block, each group of six lags is summed in one loop that reuses every
+ * loaded value six times (a sliding window a_{t−k0}, …, a_{t−k0−5}). Block sums are plain and
+ * are added across blocks with Neumaier compensation (sums.ts). Written into `into`
+ * (zero-filled) when given.
  */
-export function directLagProductSums(a: Float64Array, maxLag: number): Float64Array {
+export function directLagProductSums(
+  a: Float64Array,
+  maxLag: number,
+  into?: Float64Array,
+): Float64Array {
   const length = a.length;
-  const totals = new CompensatedSums(maxLag + 1);
+  const totals = new CompensatedSums(maxLag + 1, into);
   const group = new Float64Array(LAG_GROUP);
-  for (let from = 0; from < length; from += BLOCK) {
-    const to = Math.min(length, from + BLOCK);
+  for (let from = 0; from < length;) {
+    let to = Math.min(length, from + BLOCK);
+    // A short last block joins the one before: fewer passes for short series.
+    if (length - to < BLOCK / 2) to = length;
     for (let k0 = 0; k0 <= maxLag; k0 += LAG_GROUP) {
       groupBlockSums(a, from, to, k0, group);
       const lastLag = Math.min(maxLag, k0 + LAG_GROUP - 1);
       for (let k = k0; k <= lastLag; k++) totals.add(k, group[k - k0] as number);
     }
+    from = to;
   }
   return totals.totals();
 }
@@ -153,12 +161,14 @@ export function prefersFft(length: number, maxLag: number): boolean {
 
 /**
  * s_k = Σ_t a_t a_{t−k} for k = 0..maxLag: the direct path below the crossover, the transform
- * path above it (`prefersFft`).
+ * path above it (`prefersFft`). Written into `into` (zero-filled) when given.
  */
-export function lagProductSums(a: Float64Array, maxLag: number): Float64Array {
-  return prefersFft(a.length, maxLag)
-    ? fftLagProductSums(a, maxLag)
-    : directLagProductSums(a, maxLag);
+export function lagProductSums(a: Float64Array, maxLag: number, into?: Float64Array): Float64Array {
+  if (!prefersFft(a.length, maxLag)) return directLagProductSums(a, maxLag, into);
+  const sums = fftLagProductSums(a, maxLag);
+  if (into === undefined) return sums;
+  into.set(sums);
+  return into;
 }
 
 /**
@@ -166,12 +176,12 @@ export function lagProductSums(a: Float64Array, maxLag: number): Float64Array {
  * by inclusion–exclusion: of the length − k pairs at lag k, those with a gap at t or at t − k are
  * lost, and those with gaps at both ends were counted twice; the last term needs only the pairs of
  * gaps at most K apart, O(n + gaps·K) at worst. Above the crossover, by transforming the presence
- * mask instead (the same path as the lag sums).
+ * mask instead (the same path as the lag sums). Written into `into` when given.
  */
-export function pairCounts(series: Series, maxLag: number): Int32Array {
+export function pairCounts(series: Series, maxLag: number, into?: Int32Array): Int32Array {
   const { present, gaps } = series;
   const length = present.length;
-  const counts = new Int32Array(maxLag + 1);
+  const counts = into ?? new Int32Array(maxLag + 1);
   for (let k = 0; k <= maxLag; k++) counts[k] = Math.max(0, length - k);
   if (gaps === 0) return counts;
   if (prefersFft(length, maxLag)) {
@@ -228,10 +238,15 @@ export function autocorrelation(series: Series, maxLag: number): Autocorrelation
       `the series${series.label ? ` "${series.label}"` : ""} is constant (every value is ${mean}): its autocorrelation is undefined`,
     );
   }
-  const pairs = pairCounts(series, maxLag);
+  // One buffer for the three per-lag results: each small typed array of its own would cost an
+  // allocation that, for a short series, takes longer than the arithmetic.
+  const lags = maxLag + 1;
+  const buffer = new ArrayBuffer(20 * lags);
+  const autocovariance = new Float64Array(buffer, 0, lags);
+  const correlation = new Float64Array(buffer, 8 * lags, lags);
+  const pairs = pairCounts(series, maxLag, new Int32Array(buffer, 16 * lags, lags));
   // The lag sums s_k, turned into γ̂_k = s_k/n in place.
-  const autocovariance = lagProductSums(deviations, maxLag);
-  const correlation = new Float64Array(maxLag + 1);
+  lagProductSums(deviations, maxLag, autocovariance);
   for (let k = 0; k <= maxLag; k++) {
     const s = k === 0 ? sumSquares : (pairs[k] as number) > 0 ? (autocovariance[k] as number) : NaN;
     autocovariance[k] = s / n;

@@ -33,14 +33,15 @@ export class CompensatedSum {
 
 /**
  * Many Neumaier accumulators side by side (one per lag, say), so that adding to one allocates
- * nothing. `add(i, x)` is `CompensatedSum.add` for accumulator i.
+ * nothing. `add(i, x)` is `CompensatedSum.add` for accumulator i. The running sums live in
+ * `into` when given (zero-filled, `count` long), so the totals need no array of their own.
  */
 export class CompensatedSums {
   private readonly sums: Float64Array;
   private readonly compensations: number[];
 
-  constructor(count: number) {
-    this.sums = new Float64Array(count);
+  constructor(count: number, into?: Float64Array) {
+    this.sums = into ?? new Float64Array(count);
     // An ordinary array: small typed arrays cost more to allocate than they save here.
     this.compensations = new Array<number>(count).fill(0);
   }
