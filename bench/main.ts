@@ -3,6 +3,9 @@
  * `npm run bench -- --json` prints one JSON object {"cases": [...]} on stdout (the table goes to
  * stderr); `-- --only batch,growth` runs some cases only (keys: memory, lagtable, acf, cells,
  * batch, growth, crossover). Not part of `npm test`: unit tests never time anything.
+ * Node runs it with --expose-gc (a full collection before each timing) and --single-threaded-gc
+ * (collection work stays on the thread that causes it, so its cost is counted in that case and a
+ * busy second core does not change how much of it is hidden).
  */
 import {
   crossoverCase,
