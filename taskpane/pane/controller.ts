@@ -44,6 +44,7 @@ export class PaneController {
   onShown: (shown: Shown | null) => void = () => {};
 
   constructor(private readonly el: PaneElements) {
+    el.main.setAttribute("aria-busy", "false");
     wireTabs(el.tabs, (view) => this.choose(view));
     el.settings.addEventListener("input", () => this.settingsChanged(300));
     el.settings.addEventListener("change", () => this.settingsChanged(0));
@@ -127,7 +128,6 @@ export class PaneController {
         ? "This range is larger than a cell function's payload (about 5 MB) can carry: the pane and a snapshot work, live formulas would fail. For more, use the command-line tool on a CSV export."
         : null,
     );
-    this.el.main.setAttribute("aria-busy", "false");
     this.onShown(this.shown);
   }
 
