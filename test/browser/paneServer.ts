@@ -3,9 +3,9 @@
  * or older than the pane's sources) served on 127.0.0.1, and Debian's Chromium located.
  */
 import { execFileSync } from "node:child_process";
-import { existsSync, readFileSync, statSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, rmSync, statSync } from "node:fs";
 import { createServer, type Server } from "node:http";
-import { extname, join, normalize, resolve } from "node:path";
+import { dirname, extname, join, normalize, resolve } from "node:path";
 
 export const ROOT = resolve(__dirname, "..", "..");
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -47,21 +47,31 @@ export function builtPane(): string {
   const reason = staleness(dist);
   if (reason === undefined) return dist;
   const own = join(ROOT, "test-output", "pane-build");
-  if (staleness(own) === undefined) return own;
-  // Not over dist/: other tests may be reading it right now.
-  console.log(`browser tests: ${reason}; building the pane into ${own}`);
-  execFileSync(
-    process.execPath,
-    [
-      join(ROOT, "node_modules", "webpack-cli", "bin", "cli.js"),
-      "--mode",
-      "production",
-      "--output-path",
-      own,
-    ],
-    { cwd: ROOT, stdio: "ignore" },
-  );
-  return own;
+  // Both browser test files may get here at once: one builds, the other waits for it.
+  const lock = `${own}.lock`;
+  mkdirSync(dirname(lock), { recursive: true });
+  for (;;) {
+    if (staleness(own) === undefined) return own;
+    try {
+      mkdirSync(lock);
+    } catch {
+      Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 250);
+      continue;
+    }
+    try {
+      if (staleness(own) === undefined) return own;
+      // Not over dist/: other tests may be reading it right now.
+      console.log(`browser tests: ${reason}; building the pane into ${own}`);
+      const webpack = join(ROOT, "node_modules", "webpack-cli", "bin", "cli.js");
+      execFileSync(process.execPath, [webpack, "--mode", "production", "--output-path", own], {
+        cwd: ROOT,
+        stdio: "ignore",
+      });
+      return own;
+    } finally {
+      rmSync(lock, { recursive: true, force: true });
+    }
+  }
 }
 
 export interface PaneServer {
