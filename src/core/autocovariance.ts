@@ -216,10 +216,13 @@ export function pairCounts(series: Series, maxLag: number, into?: Int32Array): I
 export interface Autocorrelation {
   readonly n: number;
   readonly mean: number;
-  /** c₀ = Σ d_t². */
+  /** c₀/scale² = Σ d_t² of the stored deviations (centre.ts). */
   readonly sumSquares: number;
+  /** d_t/scale (centre.ts). */
   readonly deviations: Float64Array;
-  /** γ̂_k for k = 0..K. */
+  /** Power of two the deviations were divided by; 1 for data of ordinary size. */
+  readonly scale: number;
+  /** γ̂_k for k = 0..K, in the data's own units. */
   readonly autocovariance: Float64Array;
   /** r_k for k = 0..K (r_0 = 1); NaN where a lag has no available pair. */
   readonly correlation: Float64Array;
@@ -232,7 +235,7 @@ export interface Autocorrelation {
  * 0 ≤ maxLag < series length). Refuses a constant series: its autocorrelation is undefined.
  */
 export function autocorrelation(series: Series, maxLag: number): Autocorrelation {
-  const { n, mean, deviations, sumSquares } = centre(series);
+  const { n, mean, deviations, sumSquares, scale } = centre(series);
   if (!(sumSquares > 0)) {
     invalid(
       `the series${series.label ? ` "${series.label}"` : ""} is constant (every value is ${mean}): its autocorrelation is undefined`,
@@ -249,8 +252,8 @@ export function autocorrelation(series: Series, maxLag: number): Autocorrelation
   lagProductSums(deviations, maxLag, autocovariance);
   for (let k = 0; k <= maxLag; k++) {
     const s = k === 0 ? sumSquares : (pairs[k] as number) > 0 ? (autocovariance[k] as number) : NaN;
-    autocovariance[k] = s / n;
+    autocovariance[k] = scale === 1 ? s / n : (s / n) * scale * scale;
     correlation[k] = k === 0 ? 1 : s / sumSquares;
   }
-  return { n, mean, sumSquares, deviations, autocovariance, correlation, pairs };
+  return { n, mean, sumSquares, deviations, scale, autocovariance, correlation, pairs };
 }

@@ -8,6 +8,12 @@
  * Each sum adds blocks of `BLOCK` terms plainly and the block totals with compensation
  * (sums.ts); a series without gaps skips the presence test.
  * Gaps contribute d_t = 0, so every lag sum over d runs over the available pairs only. O(n).
+ *
+ * Extreme magnitudes: when the root-mean-square deviation lies outside 2^±200 (about 1e±60), the
+ * deviations are divided by a power of two (exact) so that their squares and fourth powers
+ * neither overflow nor sink into the subnormal range; `scale` says by how much. Correlations,
+ * z values and tests are scale-free; absolute figures (variance, autocovariance) multiply back
+ * by scale². Ordinary data have scale 1 and take no extra pass.
  */
 import { tooShort } from "./errors";
 import { BLOCK, CompensatedSum } from "./sums";
@@ -17,10 +23,43 @@ export interface Centred {
   /** Number of values present. */
   readonly n: number;
   readonly mean: number;
-  /** d_t = x_t − x̄ at present positions, 0 at gaps. */
+  /** d_t = (x_t − x̄)/scale at present positions, 0 at gaps. */
   readonly deviations: Float64Array;
-  /** c₀ = Σ d_t². */
+  /** c₀/scale² = Σ d_t² of the stored deviations. */
   readonly sumSquares: number;
+  /** The power of two the deviations were divided by: 1 unless the data are extreme in size. */
+  readonly scale: number;
+}
+
+const SAFE_LOW = 2 ** -200;
+const SAFE_HIGH = 2 ** 200;
+
+/** Blocked compensated Σ d_t². */
+function sumOfSquares(deviations: Float64Array): number {
+  const length = deviations.length;
+  const squares = new CompensatedSum();
+  for (let from = 0; from < length; from += BLOCK) {
+    const to = Math.min(length, from + BLOCK);
+    let block = 0;
+    for (let t = from; t < to; t++) {
+      const d = deviations[t] as number;
+      block += d * d;
+    }
+    squares.add(block);
+  }
+  return squares.value;
+}
+
+/** Divides the deviations by a power of two near their largest magnitude; returns it (or 1). */
+function rescale(deviations: Float64Array): number {
+  let largest = 0;
+  for (let t = 0; t < deviations.length; t++) {
+    largest = Math.max(largest, Math.abs(deviations[t] as number));
+  }
+  if (!(largest > 0 && Number.isFinite(largest))) return 1;
+  const scale = 2 ** Math.round(Math.log2(largest));
+  for (let t = 0; t < deviations.length; t++) deviations[t] = (deviations[t] as number) / scale;
+  return scale;
 }
 
 /** Σ (x_t − shift) over the present positions, blocked and compensated. */
@@ -63,5 +102,10 @@ export function centre(series: Series): Centred {
     }
     squares.add(block);
   }
-  return { n, mean, deviations, sumSquares: squares.value };
+  const sumSquares = squares.value;
+  const rms = Math.sqrt(sumSquares / n);
+  if (rms >= SAFE_LOW && rms <= SAFE_HIGH) return { n, mean, deviations, sumSquares, scale: 1 };
+  const scale = rescale(deviations);
+  if (scale === 1) return { n, mean, deviations, sumSquares, scale };
+  return { n, mean, deviations, sumSquares: sumOfSquares(deviations), scale };
 }

@@ -238,7 +238,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
     length: series.values.length,
     gaps: series.gaps,
     mean: level.mean,
-    variance: level.sumSquares / ac.n,
+    variance: (level.sumSquares / ac.n) * level.scale * level.scale,
     autocovariance: ac.autocovariance,
     innerLevel,
     outerLevel,
