@@ -15,6 +15,7 @@ import {
   forecastAudit,
   invalid,
   lagTable,
+  noiseCheck,
   normalityCheck,
   parseBandKind,
   parseTestKind,
@@ -25,6 +26,7 @@ import {
   runsCheck,
   seriesFromValues,
   volatilityCheck,
+  type LagOptions,
   type LagTable,
   type Series,
 } from "../src/core";
@@ -169,7 +171,10 @@ export function seriesNoiseCheck(
   alpha?: number,
 ): any[][] {
   return cellFunction(() => {
-    const { verdict } = analyse(series, { maxLag, season, fittedParams, alpha });
+    const { verdict } = noiseCheck(
+      readSeries(series),
+      lagOptions({ maxLag, season, fittedParams, alpha }),
+    );
     return row(verdict.word, verdict.reason);
   });
 }
@@ -183,15 +188,20 @@ interface CellArguments {
   readonly bandKind?: unknown;
 }
 
-/** Reads the series and arguments and runs the core's lag analysis. */
-function analyse(series: unknown, args: CellArguments): LagTable {
-  return lagTable(readSeries(series), {
+/** The core's lag options from the arguments as the host passed them. */
+function lagOptions(args: CellArguments): LagOptions {
+  return {
     maxLag: optionalNumber("maxLag", args.maxLag),
     alpha: optionalNumber("alpha", args.alpha),
     season: optionalNumber("season", args.season),
     fittedParams: optionalNumber("fittedParams", args.fittedParams),
     bandKind: parseBandKind(optionalKeyword(args.bandKind)),
-  });
+  };
+}
+
+/** Reads the series and arguments and runs the core's lag analysis. */
+function analyse(series: unknown, args: CellArguments): LagTable {
+  return lagTable(readSeries(series), lagOptions(args));
 }
 
 /**
