@@ -46,7 +46,7 @@ export function biasFinding(check: BiasCheck): CheckFinding {
   return check.flagged
     ? {
         flagged: true,
-        text: `The mean differs from zero (${figures}): the errors are biased ${check.mean > 0 ? "upwards" : "downwards"}, which a lag pattern cannot show.`,
+        text: `The mean differs from zero (${figures}). Residuals and forecast errors should average zero: if these are errors, they run ${check.mean > 0 ? "high" : "low"} on average, which a lag pattern cannot show.`,
       }
     : { flagged: false, text: `No bias found at ${percent(check.alpha)} (${figures}).` };
 }
