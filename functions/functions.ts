@@ -31,6 +31,7 @@ import {
   type Series,
 } from "../src/core";
 import { optionalKeyword, optionalNumber, readSeries } from "./arguments";
+import { lagTableHeader } from "../src/report/lagTableHeader";
 import { cellFunction } from "./cellFunction";
 import { column, numberCell, row, type Cell } from "./shape";
 
@@ -106,15 +107,7 @@ export function seriesLagTable(
 ): any[][] {
   return cellFunction(() => {
     const table = analyse(series, { maxLag, alpha, bandKind, season });
-    const header = [
-      "lag",
-      "autocorrelation",
-      "partial autocorrelation",
-      "z",
-      "p (this lag)",
-      `p (Šidák, ${table.maxLag} lags)`,
-      "p (Ljung–Box to lag)",
-    ];
+    const header = lagTableHeader(table);
     const body = table.rows.flatMap((r) =>
       row(r.lag, r.correlation, r.partial, r.z, r.pLag, r.pSidak, r.jointP),
     );

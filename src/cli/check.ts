@@ -6,7 +6,7 @@
  */
 import {
   biasCheck,
-  isEcholotError,
+  resultOrReason,
   lagTable,
   normalityCheck,
   runsCheck,
@@ -35,22 +35,14 @@ export function runCheck(argv: readonly string[]): string {
     : `${lagTableText(result)}\n\n${sideChecksText(side)}`;
 }
 
-/** The outcome of one side check: its result, or why the data cannot support it. */
-function attempt<T>(compute: () => T): T | string {
-  try {
-    return compute();
-  } catch (error) {
-    if (isEcholotError(error)) return error.message;
-    throw error;
-  }
-}
-
 function sideChecks(series: Series, table: LagTable): SideChecks {
   return {
     alpha: table.alpha,
-    volatility: attempt(() => volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha })),
-    bias: attempt(() => biasCheck(series, { alpha: table.alpha })),
-    runs: attempt(() => runsCheck(series)),
-    normality: attempt(() => normalityCheck(series)),
+    volatility: resultOrReason(() =>
+      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
+    ),
+    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
+    runs: resultOrReason(() => runsCheck(series)),
+    normality: resultOrReason(() => normalityCheck(series)),
   };
 }

@@ -33,3 +33,16 @@ export function tooShort(message: string): never {
 export function isEcholotError(error: unknown): error is EcholotError {
   return error instanceof EcholotError;
 }
+
+/**
+ * The result of `compute`, or the message of the EcholotError it threw: for side checks that a
+ * report shows when the data support them and explains when they do not. Other errors propagate.
+ */
+export function resultOrReason<T>(compute: () => T): T | string {
+  try {
+    return compute();
+  } catch (error) {
+    if (isEcholotError(error)) return error.message;
+    throw error;
+  }
+}

@@ -9,5 +9,6 @@ export * from "./jointRibbon";
 export * from "./explain";
 export * from "./htmlParts";
 export * from "./htmlReport";
+export * from "./lagTableHeader";
 export * from "./placedReport";
 export * from "./seriesReport";

@@ -10,6 +10,7 @@
  */
 import { formatP, TEST_NAMES, type LagTable } from "../core";
 import { explainVerdict, type Explanation } from "./explain";
+import { lagTableHeader } from "./lagTableHeader";
 import { PALETTE } from "./palette";
 import { SCREENING_CAUTION } from "./verdictBadge";
 
@@ -145,18 +146,6 @@ function settingsText(table: LagTable): string {
   ].join(", ");
 }
 
-function tableHeader(table: LagTable): string[] {
-  return [
-    "lag",
-    "autocorrelation",
-    "partial autocorrelation",
-    "z",
-    "p (this lag)",
-    `p (Šidák, ${table.maxLag} lags)`,
-    `p (${TEST_NAMES[table.testKind]} to lag)`,
-  ];
-}
-
 function numberOrEmpty(x: number): number | string {
   return Number.isFinite(x) ? x : "";
 }
@@ -213,7 +202,7 @@ function buildPlan(
     text(6, 1, numberOrEmpty(table.joint.q));
     text(6, 2, table.joint.df);
     text(6, 3, numberOrEmpty(table.joint.p));
-    tableHeader(table).forEach((h, c) => text(TABLE_ROW, c, h));
+    lagTableHeader(table).forEach((h, c) => text(TABLE_ROW, c, h));
     table.rows.forEach((r, i) => {
       const values = [r.lag, r.correlation, r.partial, r.z, r.pLag, r.pSidak, r.jointP];
       values.forEach((v, c) => text(TABLE_ROW + 1 + i, c, numberOrEmpty(v)));

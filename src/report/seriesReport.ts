@@ -5,7 +5,7 @@
  */
 import {
   biasCheck,
-  isEcholotError,
+  resultOrReason,
   lagTable,
   volatilityCheck,
   type BiasCheck,
@@ -27,26 +27,17 @@ export interface SeriesReport {
   readonly explanation: Explanation;
 }
 
-function attempt<T>(compute: () => T): T | string {
-  try {
-    return compute();
-  } catch (error) {
-    if (isEcholotError(error)) return error.message;
-    throw error;
-  }
-}
-
 /** Throws the core's EcholotError when the options or the series are refused. */
 export function seriesReport(series: Series, options: LagOptions): SeriesReport {
   const table = lagTable(series, options);
   // The squares view uses the plain noise band: the McLeod–Li reference.
-  const squares = attempt(() =>
+  const squares = resultOrReason(() =>
     lagTable(series, { ...options, testKind: "squares", bandKind: "noise", fittedParams: 0 }),
   );
-  const volatility = attempt(() =>
+  const volatility = resultOrReason(() =>
     volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
   );
-  const bias = attempt(() => biasCheck(series, { alpha: table.alpha }));
+  const bias = resultOrReason(() => biasCheck(series, { alpha: table.alpha }));
   const volatilityResult = typeof volatility === "string" ? undefined : volatility;
   const biasResult = typeof bias === "string" ? undefined : bias;
   const explanation = explainVerdict(table, {

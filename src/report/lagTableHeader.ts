@@ -1,0 +1,14 @@
+import { TEST_NAMES, type LagTable } from "../core";
+
+/** The header row of the spilled lag table (SERIESLAGTABLE) and of the placed reports. */
+export function lagTableHeader(table: LagTable): string[] {
+  return [
+    "lag",
+    "autocorrelation",
+    "partial autocorrelation",
+    "z",
+    "p (this lag)",
+    `p (Šidák, ${table.maxLag} lags)`,
+    `p (${TEST_NAMES[table.testKind]} to lag)`,
+  ];
+}
