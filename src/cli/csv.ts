@@ -1,11 +1,19 @@
 /**
- * CSV intake for the CLI: the first row holds headers; an empty cell or NA (also N/A, #N/A) is a
- * gap; any other text is refused with its row and column named. The series rules themselves
+ * CSV intake for the CLI: the first row holds headers; cells are read by the core's text-cell
+ * rules (textCells.ts, shared with the standalone pane): an empty cell or NA (also N/A, #N/A) is
+ * a gap; any other text is refused with its row and column named. The series rules themselves
  * (trimming, labels, gaps) are the core's intake.
  */
 import { readFileSync } from "node:fs";
 import { parse } from "csv-parse/sync";
-import { invalid, seriesFromValues, type Series } from "../core";
+import {
+  invalid,
+  isGapText,
+  isNumberColumn,
+  isNumberText,
+  seriesFromValues,
+  type Series,
+} from "../core";
 import { UsageError } from "./errors";
 
 export interface CsvTable {
@@ -14,9 +22,6 @@ export interface CsvTable {
   /** Data rows as text, without the header row. */
   readonly rows: readonly (readonly string[])[];
 }
-
-const GAP_WORDS = new Set(["", "NA", "N/A", "#N/A"]);
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 export function readCsv(file: string): CsvTable {
   let text: string;
@@ -42,11 +47,7 @@ export function readCsv(file: string): CsvTable {
  * its row and column, so nothing is silently dropped.
  */
 export function isNumericColumn(table: CsvTable, column: number): boolean {
-  for (const row of table.rows) {
-    const cell = row[column] ?? "";
-    if (!GAP_WORDS.has(cell)) return NUMBER.test(cell);
-  }
-  return false;
+  return isNumberColumn(table.rows.map((row) => row[column] ?? ""));
 }
 
 /** Resolves `--column NAME|N` (N counts from 1); without it, the first numeric column. */
@@ -73,8 +74,8 @@ export function columnSeries(table: CsvTable, column: number): Series {
   const where = (i: number) => `row ${i + 2}, column ${column + 1} ("${header}") of ${table.file}`;
   const cells = table.rows.map((row, i): number | null => {
     const cell = row[column] ?? "";
-    if (GAP_WORDS.has(cell)) return null;
-    if (!NUMBER.test(cell)) {
+    if (isGapText(cell)) return null;
+    if (!isNumberText(cell)) {
       invalid(
         `${where(i)} holds "${cell}", which is not a number; write a number, or leave it empty or NA for a gap`,
       );

@@ -7,18 +7,15 @@
  * column.
  */
 import { parse } from "csv-parse/browser/esm/sync";
-import { invalid, seriesFromValues, type Series } from "../../src/core";
-
-const GAP_WORDS = new Set(["", "NA", "N/A", "#N/A"]);
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-
-function isNumber(cell: string): boolean {
-  return NUMBER.test(cell);
-}
-
-function isGap(cell: string): boolean {
-  return GAP_WORDS.has(cell.trim().toUpperCase());
-}
+import {
+  invalid,
+  isGapText as isGap,
+  isNumberColumn,
+  isNumberText as isNumber,
+  readTextCell,
+  seriesFromValues,
+  type Series,
+} from "../../src/core";
 
 function delimiterOf(text: string): string | undefined {
   const firstLine = text.split(/\r?\n/, 1)[0] ?? "";
@@ -83,12 +80,11 @@ export function seriesFromText(text: string, origin: string): TextSeries {
   for (let c = 0; c < width; c++) {
     const name = headers[c] ?? `column ${c + 1}`;
     const cells = body.map((r) => r[c] ?? "");
-    const firstValue = cells.find((cell) => !isGap(cell));
-    if (firstValue === undefined || !isNumber(firstValue)) {
+    if (!isNumberColumn(cells)) {
       skipped.push(name);
       continue;
     }
-    const values = cells.map((cell) => (isGap(cell) ? null : isNumber(cell) ? Number(cell) : cell));
+    const values = cells.map(readTextCell);
     const rowOffset = hasHeader ? 2 : 1;
     series.push(
       seriesFromValues(values, {
