@@ -1,7 +1,10 @@
 /**
- * Follow mode: once a range is pinned, a change on its sheet that touches it calls back, so the
- * pane recomputes. Handlers live as long as the pane does (the host does not keep them across
- * sessions); `stop` removes the handler.
+ * Follow mode: once a range is pinned, the pane recomputes when its values may have changed —
+ * an edit on its sheet that touches it (`onChanged`), or a recalculation of its sheet
+ * (`onCalculated`: residual columns are usually formulas, whose values change without any edit
+ * in the range). `onChange` receives the edited address, or `null` after a recalculation (the
+ * caller then compares the values it reads with those it has). Handlers live as long as the pane
+ * does (the host does not keep them across sessions); `stop` removes them.
  */
 import { splitAddress, touches } from "./address";
 import type { ExcelRun } from "./excel";
@@ -14,25 +17,28 @@ export interface Following {
 export async function followRange(
   run: ExcelRun,
   address: string,
-  onChange: (changedAddress: string) => void | Promise<void>,
+  onChange: (changedAddress: string | null) => void | Promise<void>,
 ): Promise<Following> {
   const { sheet, range } = splitAddress(address);
-  const handler = await run(async (context) => {
+  const handlers = await run(async (context) => {
     const worksheet =
       sheet === ""
         ? context.workbook.worksheets.getActiveWorksheet()
         : context.workbook.worksheets.getItem(sheet);
-    const result = worksheet.onChanged.add(async (event) => {
+    const edited = worksheet.onChanged.add(async (event) => {
       if (touches(event.address, range)) await onChange(event.address);
     });
+    const recalculated = worksheet.onCalculated.add(async () => {
+      await onChange(null);
+    });
     await context.sync();
-    return result;
+    return [edited, recalculated];
   });
   return {
     address,
     async stop() {
-      handler.remove();
-      await handler.context.sync();
+      for (const handler of handlers) handler.remove();
+      await handlers[0]?.context.sync();
     },
   };
 }

@@ -60,7 +60,10 @@ export class HostSession {
       throw new HostError("select a range with values first, then pin it");
     }
     await this.following?.stop();
-    this.following = await followRange(this.run, reading.selected, () => this.refresh());
+    // An edit inside the range always recomputes; a recalculation only if the values moved.
+    this.following = await followRange(this.run, reading.selected, (edited) =>
+      this.refresh({ onlyIfChanged: edited === null }),
+    );
     this.listener.onPinChange(reading.selected);
   }
 
@@ -71,8 +74,13 @@ export class HostSession {
     await this.refresh();
   }
 
-  /** Reads the pinned range if there is one, else the selection, and delivers it. */
-  async refresh(): Promise<void> {
+  /**
+   * Reads the pinned range if there is one, else the selection, and delivers it; with
+   * `onlyIfChanged`, only when its address or values differ from the last reading.
+   */
+  async refresh({
+    onlyIfChanged = false,
+  }: { readonly onlyIfChanged?: boolean } = {}): Promise<void> {
     const generation = ++this.generation;
     const options: ReadOptions = {
       ...this.readOptions,
@@ -92,6 +100,7 @@ export class HostSession {
               options,
             );
       if (generation !== this.generation) return;
+      if (onlyIfChanged && this.current !== null && sameReading(this.current, reading)) return;
       this.current = reading;
       this.listener.onRead(reading);
     } catch (error) {
@@ -103,4 +112,15 @@ export class HostSession {
     if (this.following !== null) return;
     await this.refresh();
   }
+}
+
+/** Whether two readings have the same address and the same cell values. */
+function sameReading(a: RangeRead, b: RangeRead): boolean {
+  if (a.address !== b.address || a.rows !== b.rows || a.columns !== b.columns) return false;
+  return a.cells.every((row, i) => {
+    const other = b.cells[i];
+    return (
+      other !== undefined && row.length === other.length && row.every((v, j) => v === other[j])
+    );
+  });
 }

@@ -26,6 +26,11 @@ export interface ChangeEvent {
   changeType: "RangeEdited";
 }
 
+export interface CalculatedEvent {
+  worksheetId: string;
+  type: "WorksheetCalculated";
+}
+
 function letters(column: number): string {
   let n = column + 1;
   let s = "";
@@ -70,6 +75,7 @@ export class FakeSheet {
   readonly cells = new Map<string, Cell>();
   readonly charts: FakeChart[] = [];
   readonly changeHandlers: ((event: ChangeEvent) => Promise<void>)[] = [];
+  readonly calculatedHandlers: ((event: CalculatedEvent) => Promise<void>)[] = [];
 
   constructor(
     public name: string,
@@ -404,6 +410,9 @@ export class FakeWorksheetProxy {
   get onChanged() {
     return new FakeEventHandlers<ChangeEvent>(this.context, this.sheet.changeHandlers);
   }
+  get onCalculated() {
+    return new FakeEventHandlers<CalculatedEvent>(this.context, this.sheet.calculatedHandlers);
+  }
   get charts() {
     return {
       add: (type: string, source: FakeRange, seriesBy: string) => {
@@ -547,5 +556,20 @@ export class FakeExcel {
       changeType: "RangeEdited",
     };
     for (const handler of [...sheet.changeHandlers]) await handler(event);
+  }
+
+  /**
+   * Stands for a recalculation: formula cells of the sheet take new values (no edit event, as
+   * when a model's inputs change elsewhere) and the sheet's calculated handlers fire.
+   */
+  async recalculate(
+    sheetName: string,
+    address?: string,
+    values?: readonly (readonly unknown[])[],
+  ): Promise<void> {
+    const sheet = this.sheet(sheetName);
+    if (address !== undefined && values !== undefined) sheet.fill(address, values);
+    const event: CalculatedEvent = { worksheetId: sheet.id, type: "WorksheetCalculated" };
+    for (const handler of [...sheet.calculatedHandlers]) await handler(event);
   }
 }

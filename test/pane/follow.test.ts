@@ -83,6 +83,33 @@ describe("HostSession", () => {
     expect(host.selectionHandlers).toHaveLength(0);
   });
 
+  it("follows a pinned range of formulas: a recalculation that moves its values recomputes, one that does not is ignored", async () => {
+    const host = new FakeExcel("Model");
+    host.sheet("Model").fill(
+      "B1",
+      seriesFColumn().map((v) => [v]),
+    );
+    await host.select("Model", "B1:B71");
+    const log = recorder();
+    const session = new HostSession(host.run, log.listener);
+    await session.start();
+    await session.pin();
+    expect(log.reads).toHaveLength(1);
+
+    // A recalculation elsewhere on the sheet leaves the residuals as they were: no new reading.
+    await host.recalculate("Model");
+    expect(log.reads).toHaveLength(1);
+
+    // The model's inputs change, so its residual formulas give new values without any edit there.
+    await host.recalculate("Model", "B3", [[30]]);
+    expect(log.reads).toHaveLength(2);
+    expect(log.reads[1]?.cells[2]).toEqual([30]);
+
+    await session.unpin();
+    expect(host.sheet("Model").calculatedHandlers).toHaveLength(0);
+    await session.stop();
+  });
+
   it("refuses to pin before anything with values was read", async () => {
     const host = new FakeExcel();
     await host.select("Sheet1", "A1:A5");
