@@ -52,7 +52,7 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
     `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
   );
   lines.push(
-    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to ${Number((alpha * 100).toPrecision(3))}% on average.`,
+    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to about ${Number((alpha * 100).toPrecision(3))}% on average (less strictly for short series, where Ljung–Box p-values run a little small in the far tail).`,
   );
   for (const { row } of order) {
     if (row.verdict === null) lines.push(`not analysed: ${row.label}: ${row.reason}`);
