@@ -13,7 +13,7 @@ import { scaleBand, scaleLinear } from "d3-scale";
 import { seasonalLags, type LagTable } from "../core";
 import { lagPoints, VIEW_QUANTITIES, type ChartView, type LagPoint } from "./lagViews";
 import { PALETTE, ZONE_COLOURS, ZONE_WORDS } from "./palette";
-import { element, figure, px, signed, textElement } from "./svg";
+import { element, figure, px, signed, svgRoot, textElement } from "./svg";
 
 /** Standardised values beyond this are pinned to the edge (DESIGN.md). */
 export const PIN_LIMIT = 6;
@@ -312,20 +312,8 @@ export function evidenceChartSvg(table: LagTable, options: EvidenceChartOptions 
     ),
   );
 
-  return element(
-    "svg",
-    {
-      xmlns: "http://www.w3.org/2000/svg",
-      class: `evidence-chart view-${view}`,
-      width,
-      height,
-      viewBox: `0 0 ${width} ${height}`,
-      role: "img",
-      "aria-labelledby": `${id}-title ${id}-desc`,
-      "font-family": "system-ui, sans-serif",
-      "data-inner": figure(table.innerLevel, 10),
-      "data-outer": figure(table.outerLevel, 10),
-    },
-    parts.join(""),
-  );
+  return svgRoot(`evidence-chart view-${view}`, width, height, id, parts.join(""), {
+    "data-inner": figure(table.innerLevel, 10),
+    "data-outer": figure(table.outerLevel, 10),
+  });
 }

@@ -9,7 +9,7 @@ import { scaleLinear } from "d3-scale";
 import { formatNumber, formatP, TEST_NAMES, type LagTable } from "../core";
 import { lagColumns, lagFrame } from "./evidenceChart";
 import { PALETTE } from "./palette";
-import { element, figure, px, textElement } from "./svg";
+import { element, figure, px, svgRoot, textElement } from "./svg";
 
 export interface JointRibbonOptions {
   /** The same width as the evidence chart above it, so the cells sit under their lags. */
@@ -103,18 +103,5 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
       `K = ${table.maxLag}: p = ${formatP(table.joint.p)}`,
     ),
   );
-  return element(
-    "svg",
-    {
-      xmlns: "http://www.w3.org/2000/svg",
-      class: "joint-ribbon",
-      width,
-      height,
-      viewBox: `0 0 ${width} ${height}`,
-      role: "img",
-      "aria-labelledby": `${id}-title ${id}-desc`,
-      "font-family": "system-ui, sans-serif",
-    },
-    parts.join(""),
-  );
+  return svgRoot("joint-ribbon", width, height, id, parts.join(""));
 }

@@ -34,6 +34,35 @@ export function element(name: string, attrs: Attributes, inner?: string): string
     : `<${name}${attributes(attrs)}>${inner}</${name}>`;
 }
 
+/**
+ * The root <svg> of a chart: its size, view box, the ids of its title and description for
+ * assistive technology, and any further attributes after those.
+ */
+export function svgRoot(
+  className: string,
+  width: number,
+  height: number,
+  idPrefix: string,
+  inner: string,
+  extra: Attributes = {},
+): string {
+  return element(
+    "svg",
+    {
+      xmlns: "http://www.w3.org/2000/svg",
+      class: className,
+      width,
+      height,
+      viewBox: `0 0 ${width} ${height}`,
+      role: "img",
+      "aria-labelledby": `${idPrefix}-title ${idPrefix}-desc`,
+      "font-family": "system-ui, sans-serif",
+      ...extra,
+    },
+    inner,
+  );
+}
+
 /** An element holding text, escaped. */
 export function textElement(name: string, attrs: Attributes, text: string): string {
   return element(name, attrs, escapeMarkup(text));
