@@ -63,6 +63,21 @@ export interface ReportSource {
 }
 
 const ZONE_ORDER = ["inside", "between", "beyond"] as const;
+
+/**
+ * The helper block's columns from column I on, left to right, and the chart series each feeds:
+ * the invisible base, the stacked corridors, then the diamonds of the three zones in ZONE_ORDER.
+ */
+const HELPER_SERIES: readonly Omit<PlanChartSeries, "values">[] = [
+  { kind: "corridor-base", name: "corridor base", colour: undefined, type: "area" },
+  { kind: "outer", name: "all-lags corridor, lower", colour: PALETTE.outerCorridor, type: "area" },
+  { kind: "inner", name: "one-lag corridor", colour: PALETTE.innerCorridor, type: "area" },
+  { kind: "outer", name: "all-lags corridor, upper", colour: PALETTE.outerCorridor, type: "area" },
+  { kind: "inside", name: "inside", colour: PALETTE.inside, type: "diamonds" },
+  { kind: "between", name: "between corridors", colour: PALETTE.watch, type: "diamonds" },
+  { kind: "beyond", name: "beyond all-lags corridor", colour: PALETTE.structure, type: "diamonds" },
+];
+
 const TABLE_ROW = 8; // row 9: the spilled lag table's header
 const HELPER_COLUMN = 8; // column I
 const LEVEL_COLUMN = 16; // column Q (labels) and R (values)
@@ -217,16 +232,7 @@ function buildPlan(
   text(TABLE_ROW + 1, LEVEL_COLUMN, `all-lags level (${K} lags)`);
   text(TABLE_ROW + 1, LEVEL_COLUMN + 1, table.outerLevel);
 
-  const helperHeaders = [
-    "corridor base",
-    "all-lags corridor, lower",
-    "one-lag corridor",
-    "all-lags corridor, upper",
-    "inside",
-    "between corridors",
-    "beyond all-lags corridor",
-  ];
-  helperHeaders.forEach((h, i) => text(TABLE_ROW, HELPER_COLUMN + i, h));
+  HELPER_SERIES.forEach((h, i) => text(TABLE_ROW, HELPER_COLUMN + i, h.name));
   const gap = table.outerLevel - table.innerLevel;
   table.rows.forEach((r, i) => {
     const row = TABLE_ROW + 1 + i;
@@ -256,57 +262,13 @@ function buildPlan(
 
   const firstDataRow = TABLE_ROW + 1;
   const column = (c: number) => rangeAddress(firstDataRow, c, K, 1);
-  const series: PlanChartSeries[] = [
-    {
-      kind: "corridor-base",
-      name: helperHeaders[0] as string,
-      values: column(HELPER_COLUMN),
-      colour: undefined,
-      type: "area",
-    },
-    {
-      kind: "outer",
-      name: helperHeaders[1] as string,
-      values: column(HELPER_COLUMN + 1),
-      colour: PALETTE.outerCorridor,
-      type: "area",
-    },
-    {
-      kind: "inner",
-      name: helperHeaders[2] as string,
-      values: column(HELPER_COLUMN + 2),
-      colour: PALETTE.innerCorridor,
-      type: "area",
-    },
-    {
-      kind: "outer",
-      name: helperHeaders[3] as string,
-      values: column(HELPER_COLUMN + 3),
-      colour: PALETTE.outerCorridor,
-      type: "area",
-    },
-    {
-      kind: "inside",
-      name: helperHeaders[4] as string,
-      values: column(HELPER_COLUMN + 4),
-      colour: PALETTE.inside,
-      type: "diamonds",
-    },
-    {
-      kind: "between",
-      name: helperHeaders[5] as string,
-      values: column(HELPER_COLUMN + 5),
-      colour: PALETTE.watch,
-      type: "diamonds",
-    },
-    {
-      kind: "beyond",
-      name: helperHeaders[6] as string,
-      values: column(HELPER_COLUMN + 6),
-      colour: PALETTE.structure,
-      type: "diamonds",
-    },
-  ];
+  const series: PlanChartSeries[] = HELPER_SERIES.map((h, i) => ({
+    kind: h.kind,
+    name: h.name,
+    values: column(HELPER_COLUMN + i),
+    colour: h.colour,
+    type: h.type,
+  }));
 
   const chartTop = firstDataRow + K + 1;
   const chartRows = 18;
