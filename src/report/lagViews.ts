@@ -12,7 +12,7 @@
  * for K lags, or beyond. The comparisons are the core's (`beyond`, `outer`) for the correlation
  * views and the same strict inequalities for the partials.
  */
-import type { LagTable } from "../core";
+import type { LagRow, LagTable } from "../core";
 import type { Zone } from "./palette";
 
 export type ChartView = "correlation" | "partial" | "squares";
@@ -50,6 +50,12 @@ export function zoneOf(z: number, innerLevel: number, outerLevel: number): Zone 
   return "inside";
 }
 
+/** A lag row's zone, from the core's comparisons: `outer` is beyond, `beyond` alone is between. */
+export function rowZone(row: LagRow): Zone | "none" {
+  if (Number.isNaN(row.z)) return "none";
+  return row.outer ? "beyond" : row.beyond ? "between" : "inside";
+}
+
 /** The points of one view. `squares` needs a table whose subject is the squared deviations. */
 export function lagPoints(table: LagTable, view: ChartView): LagPoint[] {
   if ((view === "squares") !== (table.subject === "squares")) {
@@ -73,6 +79,6 @@ export function lagPoints(table: LagTable, view: ChartView): LagPoint[] {
     lag: row.lag,
     value: row.correlation,
     z: row.z,
-    zone: Number.isNaN(row.z) ? "none" : row.outer ? "beyond" : row.beyond ? "between" : "inside",
+    zone: rowZone(row),
   }));
 }

@@ -11,6 +11,7 @@
 import { formatP, TEST_NAMES, type LagTable } from "../core";
 import { explainVerdict, type Explanation } from "./explain";
 import { lagTableHeader } from "./lagTableHeader";
+import { rowZone } from "./lagViews";
 import { PALETTE } from "./palette";
 import { SCREENING_CAUTION } from "./verdictBadge";
 
@@ -249,13 +250,8 @@ function buildPlan(
       put(row, HELPER_COLUMN + 5, guard(`AND(ABS(${z})>${innerCell},ABS(${z})<=${outerCell})`));
       put(row, HELPER_COLUMN + 6, guard(`ABS(${z})>${outerCell}`));
     } else {
-      const zone = !Number.isFinite(r.z)
-        ? "none"
-        : r.outer
-          ? "beyond"
-          : r.beyond
-            ? "between"
-            : "inside";
+      // An infinite z has no place in a chart's cell: it is left out like a lag with no pairs.
+      const zone = Number.isFinite(r.z) ? rowZone(r) : "none";
       ZONE_ORDER.forEach((z, j) => text(row, HELPER_COLUMN + 4 + j, zone === z ? r.z : ""));
     }
   });
