@@ -14,10 +14,9 @@
  * A lag with no pair is NaN. Cost O(n·K).
  */
 import { centre } from "./centre";
-import { defaultMaxLag } from "./defaultLags";
 import { normalQuantile } from "./distributions";
 import { invalid, tooShort } from "./errors";
-import { resolveAlpha, resolveLagCount } from "./options";
+import { resolveAlpha, resolveLagCountOrDefault } from "./options";
 import { CompensatedSum } from "./sums";
 import type { Series } from "./types";
 
@@ -95,10 +94,7 @@ export function crossCorrelation(
     );
   }
   const alpha = resolveAlpha(options.alpha);
-  const maxLag =
-    options.maxLag === null || options.maxLag === undefined
-      ? defaultMaxLag(n, null)
-      : resolveLagCount("maxLag", options.maxLag, n);
+  const maxLag = resolveLagCountOrDefault("maxLag", options.maxLag, n);
   const pair = (values: Float64Array, label: string): Series => ({
     values,
     present,

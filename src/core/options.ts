@@ -53,6 +53,21 @@ export function resolveLagCount(name: string, value: number, n: number): number 
   return value;
 }
 
+/**
+ * A lag count as given, checked by `resolveLagCount`; absent (`null` or undefined), the default
+ * of defaultLags.ts for n values and the season, if any.
+ */
+export function resolveLagCountOrDefault(
+  name: string,
+  value: number | null | undefined,
+  n: number,
+  season: number | null = null,
+): number {
+  return value === null || value === undefined
+    ? defaultMaxLag(n, season)
+    : resolveLagCount(name, value, n);
+}
+
 /** Validates the season length m: a whole number from 2 to n − 1. */
 export function resolveSeason(season: number | null | undefined, n: number): number | null {
   if (season === null || season === undefined) return null;
@@ -76,10 +91,7 @@ export function resolveLagOptions(series: Series, options: LagOptions = {}): Res
   const n = series.count;
   const alpha = resolveAlpha(options.alpha);
   const season = resolveSeason(options.season, n);
-  const maxLag =
-    options.maxLag === null || options.maxLag === undefined
-      ? defaultMaxLag(n, season)
-      : resolveLagCount("maxLag", options.maxLag, n);
+  const maxLag = resolveLagCountOrDefault("maxLag", options.maxLag, n, season);
   const fittedParams = options.fittedParams ?? 0;
   if (!(isWhole(fittedParams) && fittedParams >= 0 && fittedParams < maxLag)) {
     invalid(

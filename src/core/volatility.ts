@@ -16,11 +16,10 @@
  * view agree. Cost O(n·q²) for the regression.
  */
 import { centre } from "./centre";
-import { defaultMaxLag } from "./defaultLags";
 import { chiSquareUpperTail } from "./distributions";
 import { invalid, isEcholotError, tooShort } from "./errors";
 import { leastSquares } from "./leastSquares";
-import { resolveAlpha, resolveLagCount, requireValues } from "./options";
+import { resolveAlpha, resolveLagCountOrDefault, requireValues } from "./options";
 import { cumulativeJointTest, jointTestAt } from "./portmanteau";
 import { squaredDeviationCorrelation } from "./squares";
 import { CompensatedSum } from "./sums";
@@ -58,10 +57,7 @@ export function volatilityCheck(series: Series, options: VolatilityOptions = {})
   requireValues(series, 3, "the volatility check");
   const n = series.count;
   const alpha = resolveAlpha(options.alpha);
-  const q =
-    options.lags === null || options.lags === undefined
-      ? defaultMaxLag(n, null)
-      : resolveLagCount("lags", options.lags, n);
+  const q = resolveLagCountOrDefault("lags", options.lags, n);
   const { rows, rSquared } = engleRegression(series, q);
   const lm = rows * rSquared;
   const p = chiSquareUpperTail(lm, q);
