@@ -11,7 +11,7 @@
  * O(n·K)) below a measured crossover and the transform path (fft.ts: O(n log K)) above it.
  */
 import { centre } from "./centre";
-import { invalid } from "./errors";
+import { invalid, seriesName } from "./errors";
 import { fftBlockSize, fftLagProductSums } from "./fft";
 import { BLOCK, CompensatedSums } from "./sums";
 import type { Series } from "./types";
@@ -238,7 +238,7 @@ export function autocorrelation(series: Series, maxLag: number): Autocorrelation
   const { n, mean, deviations, sumSquares, scale } = centre(series);
   if (!(sumSquares > 0)) {
     invalid(
-      `the series${series.label ? ` "${series.label}"` : ""} is constant (every value is ${mean}): its autocorrelation is undefined`,
+      `${seriesName(series.label)} is constant (every value is ${mean}): its autocorrelation is undefined`,
     );
   }
   // One buffer for the three per-lag results: each small typed array of its own would cost an

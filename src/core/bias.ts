@@ -12,7 +12,7 @@
  */
 import { autocorrelation } from "./autocovariance";
 import { normalTwoSided } from "./distributions";
-import { invalid, isEcholotError } from "./errors";
+import { invalid, isEcholotError, seriesName } from "./errors";
 import { requireValues, resolveAlpha } from "./options";
 import type { Series } from "./types";
 
@@ -72,7 +72,7 @@ export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck 
   } catch (error) {
     if (!isEcholotError(error)) throw error;
     invalid(
-      `the series${series.label ? ` "${series.label}"` : ""} is constant: its mean has no sampling error to test against`,
+      `${seriesName(series.label)} is constant: its mean has no sampling error to test against`,
     );
   }
   let lrv = gamma[0] as number;
@@ -82,7 +82,7 @@ export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck 
   }
   if (!(lrv > 0)) {
     invalid(
-      `the long-run variance of the series${series.label ? ` "${series.label}"` : ""} is 0 with hacLags ${L}; choose a smaller hacLags`,
+      `the long-run variance of ${seriesName(series.label)} is 0 with hacLags ${L}; choose a smaller hacLags`,
     );
   }
   const se = Math.sqrt(lrv / n);

@@ -10,7 +10,7 @@
  * Nothing is silently dropped: dropping a value would shift every lag after it. O(n), one pass
  * over the cells, no copy of them.
  */
-import { invalid, tooShort } from "./errors";
+import { invalid, seriesName, tooShort } from "./errors";
 import type { Series } from "./types";
 
 /** How a position is named in messages, from its 0-based index in the list given. */
@@ -111,7 +111,7 @@ function readSeries(
   while (first < last && isGap(cellAt(source, fromColumn, first))) first++;
   while (last > first && isGap(cellAt(source, fromColumn, last - 1))) last--;
   if (first === last) {
-    tooShort(`the series${label ? ` "${label}"` : ""} has no values: give a range with numbers`);
+    tooShort(`${seriesName(label)} has no values: give a range with numbers`);
   }
 
   const length = last - first;

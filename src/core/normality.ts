@@ -8,7 +8,7 @@
  */
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
-import { invalid } from "./errors";
+import { invalid, seriesName } from "./errors";
 import { requireValues } from "./options";
 import { CompensatedSum } from "./sums";
 import type { Series } from "./types";
@@ -28,9 +28,7 @@ export function normalityCheck(series: Series): NormalityCheck {
   requireValues(series, 3, "the Jarque–Bera test");
   const { n, deviations, sumSquares } = centre(series);
   if (!(sumSquares > 0)) {
-    invalid(
-      `the series${series.label ? ` "${series.label}"` : ""} is constant: its skewness and kurtosis are undefined`,
-    );
+    invalid(`${seriesName(series.label)} is constant: its skewness and kurtosis are undefined`);
   }
   const third = new CompensatedSum();
   const fourth = new CompensatedSum();

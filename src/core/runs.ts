@@ -11,7 +11,7 @@
  * Cost O(n log n) for the median.
  */
 import { normalTwoSided } from "./distributions";
-import { invalid } from "./errors";
+import { invalid, seriesName } from "./errors";
 import { requireValues } from "./options";
 import type { Series } from "./types";
 
@@ -78,7 +78,7 @@ export function runsCheck(series: Series): RunsCheck {
   }
   if (sides.length < 2 || sides.every((s) => s === sides[0])) {
     invalid(
-      `the series${series.label ? ` "${series.label}"` : ""} has values on only one side of its median ${median} (the others equal it), so its runs cannot be counted`,
+      `${seriesName(series.label)} has values on only one side of its median ${median} (the others equal it), so its runs cannot be counted`,
     );
   }
   return { label: series.label, n: series.count, median, ...runsTest(sides) };

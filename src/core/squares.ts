@@ -5,7 +5,7 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { centre } from "./centre";
-import { invalid } from "./errors";
+import { invalid, seriesName } from "./errors";
 import type { Series } from "./types";
 
 export function squaredDeviationSeries(series: Series): Series {
@@ -24,7 +24,7 @@ export function squaredDeviationCorrelation(series: Series, maxLag: number): Aut
     return autocorrelation(squares, maxLag);
   } catch (error) {
     invalid(
-      `the squared deviations of the series${series.label ? ` "${series.label}"` : ""} are constant (every value is equally far from the mean), so their autocorrelation is undefined`,
+      `the squared deviations of ${seriesName(series.label)} are constant (every value is equally far from the mean), so their autocorrelation is undefined`,
     );
     throw error;
   }

@@ -17,7 +17,7 @@
  */
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
-import { invalid, isEcholotError, tooShort } from "./errors";
+import { invalid, isEcholotError, seriesName, tooShort } from "./errors";
 import { leastSquares } from "./leastSquares";
 import { resolveAlpha, resolveLagCountOrDefault, requireValues } from "./options";
 import { cumulativeJointTest, jointTestAt } from "./portmanteau";
@@ -123,7 +123,7 @@ function engleRegression(series: Series, q: number): { rows: number; rSquared: n
   } catch (error) {
     if (!isEcholotError(error)) throw error;
     invalid(
-      `the squared deviations of the series${series.label ? ` "${series.label}"` : ""} do not vary enough over the usable rows for Engle's LM test (they are constant or repeat exactly); use fewer lags or check the data`,
+      `the squared deviations of ${seriesName(series.label)} do not vary enough over the usable rows for Engle's LM test (they are constant or repeat exactly); use fewer lags or check the data`,
     );
   }
   const explained = new CompensatedSum();
@@ -135,7 +135,7 @@ function engleRegression(series: Series, q: number): { rows: number; rSquared: n
   }
   if (!(total.value > 0)) {
     invalid(
-      `the squared deviations of the series${series.label ? ` "${series.label}"` : ""} are constant, so their dependence is undefined`,
+      `the squared deviations of ${seriesName(series.label)} are constant, so their dependence is undefined`,
     );
   }
   return { rows, rSquared: explained.value / total.value };
