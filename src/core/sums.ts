@@ -66,10 +66,3 @@ export class CompensatedSums {
     return this.sums;
   }
 }
-
-/** Compensated sum of `values[from..to)`. O(n). */
-export function compensatedSum(values: ArrayLike<number>, from = 0, to = values.length): number {
-  const acc = new CompensatedSum();
-  for (let i = from; i < to; i++) acc.add(values[i] as number);
-  return acc.value;
-}

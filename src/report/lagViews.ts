@@ -17,8 +17,6 @@ import type { Zone } from "./palette";
 
 export type ChartView = "correlation" | "partial" | "squares";
 
-export const CHART_VIEWS: readonly ChartView[] = ["correlation", "partial", "squares"];
-
 /** Tab names and what the values are, in plain words. */
 export const VIEW_NAMES: Readonly<Record<ChartView, string>> = {
   correlation: "correlation",
