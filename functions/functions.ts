@@ -137,12 +137,12 @@ export function seriesPortmanteau(
       requireValues(parsed, 3, "a portmanteau test");
       resolveLagCount("lags", lagCount, parsed.count);
     }
-    const table = lagTable(parsed, {
+    const { joint } = noiseCheck(parsed, {
       maxLag: lagCount,
       fittedParams: optionalNumber("fittedParams", fittedParams),
       testKind: parseTestKind(optionalKeyword(testKind)),
     });
-    return row(table.joint.q, table.joint.df, table.joint.p);
+    return row(joint.q, joint.df, joint.p);
   });
 }
 

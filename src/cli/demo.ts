@@ -1,6 +1,6 @@
 /** `echolot demo`: the verdict of every series of every demo scenario. */
 import { join } from "node:path";
-import { formatP, lagTable } from "../core";
+import { formatP, noiseCheck } from "../core";
 import { BADGES, SCREENING_CAUTION } from "../report";
 import { numericColumns, readCsv } from "./csv";
 import { DEMO_SCENARIOS, demoDirectory } from "./scenarios";
@@ -15,10 +15,10 @@ export function runDemo(): string {
     for (const reading of scenario.readings) {
       if (scenario.readings.length > 1) lines.push(`  reading: ${reading.name}`);
       for (const one of series) {
-        const table = lagTable(one, reading.options);
-        const badge = BADGES[table.verdict.word];
+        const check = noiseCheck(one, reading.options);
+        const badge = BADGES[check.verdict.word];
         lines.push(
-          `  ${one.label.padEnd(width)}  ${badge.shape} ${badge.word.padEnd(9)} p = ${formatP(table.joint.p).padEnd(8)} ${table.verdict.reason}`,
+          `  ${one.label.padEnd(width)}  ${badge.shape} ${badge.word.padEnd(9)} p = ${formatP(check.joint.p).padEnd(8)} ${check.verdict.reason}`,
         );
       }
       lines.push("");
