@@ -8,9 +8,10 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { robustVariances, standardErrors } from "./bands";
-import { normalQuantile, normalTwoSided } from "./distributions";
+import { corridorLevels } from "./corridors";
+import { normalTwoSided } from "./distributions";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
-import { sidakAdjust, sidakLevel } from "./multiplicity";
+import { sidakAdjust } from "./multiplicity";
 import { resolveLagOptions, type LagOptions, type ResolvedLagOptions } from "./options";
 import { partialAutocorrelation } from "./partial";
 import {
@@ -113,8 +114,7 @@ function screen(series: Series, options: LagOptions): Screen {
   const needsRobust = bandKind === "robust" || testKind === "robust";
   const robust = needsRobust ? robustVariances(ac, K) : undefined;
   const se = standardErrors(bandKind, ac, K, robust);
-  const innerLevel = normalQuantile(1 - alpha / 2);
-  const outerLevel = normalQuantile(1 - sidakLevel(alpha, K) / 2);
+  const { innerLevel, outerLevel } = corridorLevels(alpha, K);
   const lags: VerdictLag[] = [];
   const beyondLags: number[] = [];
   let tested = 0;
