@@ -2,19 +2,9 @@
  * The lag table as fixed-width text, for the terminal. Figures are rounded for reading only; the
  * JSON output keeps full precision.
  */
-import { formatP, isPValueBound, TEST_NAMES, type LagTable } from "../core";
+import { formatP, TEST_NAMES, type LagTable } from "../core";
+import { numberCell, pCell } from "./tableCells";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
-
-function fixed(x: number, digits: number, width: number): string {
-  const text = Number.isFinite(x) ? x.toFixed(digits) : "—";
-  return text.padStart(width);
-}
-
-function pText(p: number, width: number): string {
-  if (Number.isNaN(p)) return "—".padStart(width);
-  if (isPValueBound(p)) return "<1e-300".padStart(width);
-  return (p >= 0.0001 ? p.toFixed(4) : p.toExponential(1)).padStart(width);
-}
 
 export function lagTableText(table: LagTable): string {
   const badge = BADGES[table.verdict.word];
@@ -40,15 +30,15 @@ export function lagTableText(table: LagTable): string {
     lines.push(
       [
         String(row.lag).padStart(5),
-        fixed(row.correlation, 4, 8),
-        fixed(row.partial, 4, 8),
-        fixed(row.band, 4, 8),
-        fixed(row.z, 2, 7),
-        pText(row.pLag, 8),
-        pText(row.pSidak, 9),
-        fixed(row.jointQ, 2, 8),
+        numberCell(row.correlation, 4, 8),
+        numberCell(row.partial, 4, 8),
+        numberCell(row.band, 4, 8),
+        numberCell(row.z, 2, 7),
+        pCell(row.pLag, 8),
+        pCell(row.pSidak, 9),
+        numberCell(row.jointQ, 2, 8),
         String(row.jointDf).padStart(3),
-        pText(row.jointP, 9),
+        pCell(row.jointP, 9),
         ` ${mark}`,
       ].join(" "),
     );

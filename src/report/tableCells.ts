@@ -1,4 +1,4 @@
-/** Fixed-width cells for the terminal tables of the batch check and the forecast audit. */
+/** Fixed-width cells for the terminal tables: the lag table, the batch check and the forecast audit. */
 import { isPValueBound } from "../core";
 
 /** A number to `digits` decimals, right-aligned; "—" when undefined. */
