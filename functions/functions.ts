@@ -31,7 +31,7 @@ import {
   type Series,
 } from "../src/core";
 import { optionalKeyword, optionalNumber, readSeries } from "./arguments";
-import { lagTableHeader } from "../src/report/lagTableHeader";
+import { lagTableHeader, lagTableValues } from "../src/report/lagTableHeader";
 import { cellFunction } from "./cellFunction";
 import { column, numberCell, row, type Cell } from "./shape";
 
@@ -108,9 +108,7 @@ export function seriesLagTable(
   return cellFunction(() => {
     const table = analyse(series, { maxLag, alpha, bandKind, season });
     const header = lagTableHeader(table);
-    const body = table.rows.flatMap((r) =>
-      row(r.lag, r.correlation, r.partial, r.z, r.pLag, r.pSidak, r.jointP),
-    );
+    const body = table.rows.flatMap((r) => row(...lagTableValues(r)));
     return [header, ...body];
   });
 }

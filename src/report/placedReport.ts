@@ -10,7 +10,7 @@
  */
 import { formatP, TEST_NAMES, type LagTable } from "../core";
 import { explainVerdict, type Explanation } from "./explain";
-import { lagTableHeader } from "./lagTableHeader";
+import { lagTableHeader, lagTableValues } from "./lagTableHeader";
 import { rowZone } from "./lagViews";
 import { PALETTE } from "./palette";
 import { SCREENING_CAUTION } from "./verdictBadge";
@@ -220,8 +220,7 @@ function buildPlan(
     text(6, 3, numberOrEmpty(table.joint.p));
     lagTableHeader(table).forEach((h, c) => text(TABLE_ROW, c, h));
     table.rows.forEach((r, i) => {
-      const values = [r.lag, r.correlation, r.partial, r.z, r.pLag, r.pSidak, r.jointP];
-      values.forEach((v, c) => text(TABLE_ROW + 1 + i, c, numberOrEmpty(v)));
+      lagTableValues(r).forEach((v, c) => text(TABLE_ROW + 1 + i, c, numberOrEmpty(v)));
     });
   }
 
