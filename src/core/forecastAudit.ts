@@ -20,10 +20,10 @@ import { standardErrors } from "./bands";
 import { biasCheck, defaultHacLags, type BiasCheck } from "./bias";
 import { defaultMaxLag } from "./defaultLags";
 import { corridorLevels } from "./corridors";
-import { isPValueBound, normalTwoSided } from "./distributions";
+import { normalTwoSided } from "./distributions";
 import { invalid } from "./errors";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
-import { formatNumber, formatP } from "./format";
+import { formatNumber, pPhrase } from "./format";
 import { laterLagsTest, type LaterLagsTest } from "./laterLags";
 import { requireValues, resolveAlpha, resolveSeason } from "./options";
 import type { Series } from "./types";
@@ -166,15 +166,10 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
 
 function combined(bias: BiasCheck, dependence: Verdict): Verdict {
   if (dependence.word === "short" || !bias.flagged) return dependence;
-  const sentence = `The forecasts are biased: mean error ${formatNumber(bias.mean, 4)} (Newey–West se ${formatNumber(bias.se, 3)} over ${bias.hacLags} lag${bias.hacLags === 1 ? "" : "s"}, t = ${formatNumber(bias.t, 3)}, ${pClause(bias.p)}).`;
+  const sentence = `The forecasts are biased: mean error ${formatNumber(bias.mean, 4)} (Newey–West se ${formatNumber(bias.se, 3)} over ${bias.hacLags} lag${bias.hacLags === 1 ? "" : "s"}, t = ${formatNumber(bias.t, 3)}, ${pPhrase(bias.p)}).`;
   return {
     word: "structure",
     reason: `${sentence} Dependence (${dependence.word}): ${dependence.reason}`,
     triggers: dependence.triggers,
   };
-}
-
-/** "p = 0.012", or "p < 1e-300" at the floor. */
-function pClause(p: number): string {
-  return isPValueBound(p) ? "p < 1e-300" : `p = ${formatP(p)}`;
 }

@@ -12,6 +12,11 @@ export function formatP(p: number): string {
   return p.toExponential(1);
 }
 
+/** A p-value as a clause: "p = 0.012", or "p < 1e-300" at the floor. */
+export function pPhrase(p: number): string {
+  return isPValueBound(p) ? "p < 1e-300" : `p = ${formatP(p)}`;
+}
+
 /** A statistic for prose, to `digits` significant figures, without trailing zeros. */
 export function formatNumber(x: number, digits = 3): string {
   if (!Number.isFinite(x)) return String(x);

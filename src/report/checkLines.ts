@@ -6,8 +6,7 @@
  */
 import {
   formatNumber,
-  formatP,
-  isPValueBound,
+  pPhrase,
   type BiasCheck,
   type NormalityCheck,
   type RunsCheck,
@@ -17,11 +16,6 @@ import {
 export interface CheckFinding {
   readonly flagged: boolean;
   readonly text: string;
-}
-
-/** "p = 0.012", or "p < 1e-300" at the floor. */
-export function pPhrase(p: number): string {
-  return isPValueBound(p) ? "p < 1e-300" : `p = ${formatP(p)}`;
 }
 
 function percent(alpha: number): string {

@@ -9,12 +9,12 @@ import {
   falseAlarmSentence,
   formatLagList,
   formatNumber,
+  pPhrase,
   seasonalLags,
   TEST_NAMES,
   type LagTable,
   type VerdictWord,
 } from "../core";
-import { pPhrase } from "./checkLines";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 
 export type ExplanationTopic =
