@@ -4,6 +4,7 @@
  * count the false-discovery rate keeps, and the reasons of series that could not be analysed.
  */
 import { formatNumber, TEST_NAMES, type BatchCheck, type TestKind } from "../core";
+import { rowsByQValue } from "./batchOrder";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 import { pCell, numberCell } from "./tableCells";
 
@@ -16,9 +17,7 @@ export interface BatchTextContext {
 export function batchText(batch: BatchCheck, context: BatchTextContext): string {
   const { alpha } = batch;
   const width = Math.max(6, ...batch.rows.map((row) => row.label.length));
-  const order = batch.rows
-    .map((row, index) => ({ row, index }))
-    .sort((a, b) => sortKey(a.row.qValue) - sortKey(b.row.qValue) || a.index - b.index);
+  const order = rowsByQValue(batch);
   const lines: string[] = [];
   lines.push(
     `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${context.maxLag === null ? "the default lags" : `${context.maxLag} lags`}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}; sorted by q-value`,
@@ -27,7 +26,7 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
   lines.push(
     `${"series".padEnd(width)}      n         Q   df         p   q-value  verdict     flagged`,
   );
-  for (const { row } of order) {
+  for (const row of order) {
     const badge =
       row.verdict === null ? "— not analysed" : `${BADGES[row.verdict].shape} ${row.verdict}`;
     const flags = [row.p < alpha ? "raw" : "", row.qValue <= alpha ? "FDR" : ""]
@@ -54,14 +53,10 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
   lines.push(
     `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to about ${Number((alpha * 100).toPrecision(3))}% on average (less strictly for short series, where Ljung–Box p-values run a little small in the far tail).`,
   );
-  for (const { row } of order) {
+  for (const row of order) {
     if (row.verdict === null) lines.push(`not analysed: ${row.label}: ${row.reason}`);
   }
   lines.push("");
   lines.push(SCREENING_CAUTION);
   return lines.map((line) => line.trimEnd()).join("\n");
-}
-
-function sortKey(q: number): number {
-  return Number.isNaN(q) ? Infinity : q;
 }

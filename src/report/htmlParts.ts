@@ -12,6 +12,7 @@ import {
   type LagTable,
   type VerdictWord,
 } from "../core";
+import { rowsByQValue } from "./batchOrder";
 import { escapeMarkup } from "./escape";
 import type { Explanation } from "./explain";
 import { lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
@@ -168,13 +169,7 @@ export function zoneLegendHtml(table: LagTable): string {
  * could not be analysed last, with their reason).
  */
 export function batchTableHtml(batch: BatchCheck): string {
-  const order = batch.rows
-    .map((row, index) => ({ row, index }))
-    .sort((a, b) => {
-      const qa = Number.isNaN(a.row.qValue) ? Infinity : a.row.qValue;
-      const qb = Number.isNaN(b.row.qValue) ? Infinity : b.row.qValue;
-      return qa - qb || a.index - b.index;
-    });
+  const order = rowsByQValue(batch);
   const head = element(
     "tr",
     {},
@@ -183,7 +178,7 @@ export function batchTableHtml(batch: BatchCheck): string {
       .join(""),
   );
   const body = order
-    .map(({ row }) => {
+    .map((row) => {
       const verdict =
         row.verdict === null
           ? textElement("td", { title: row.reason }, "not analysed")
