@@ -36,6 +36,11 @@ export function formatPercent(p: number): string {
   return "less than 0.1%";
 }
 
+/** A significance level as a percentage for prose, to 3 significant figures: 0.05 → "5%". */
+export function formatLevel(alpha: number): string {
+  return `${Number((alpha * 100).toPrecision(3))}%`;
+}
+
 /** "lag 7", "lags 7, 19", "lags 1, 2, 3 and 9 more". */
 export function formatLagList(lags: readonly number[], most = 8): string {
   if (lags.length === 1) return `lag ${lags[0]}`;

@@ -11,7 +11,7 @@
  * joint tests is poor. The joint test is the one chosen by `testKind` (Ljung–Box by default).
  */
 import type { FalseAlarmNote } from "./falseAlarms";
-import { formatLagList, formatNumber, formatP, formatPercent } from "./format";
+import { formatLagList, formatLevel, formatNumber, formatP, formatPercent } from "./format";
 import type { JointTest } from "./portmanteau";
 import { TEST_NAMES } from "./portmanteau";
 import type { VerdictWord } from "./types";
@@ -67,13 +67,9 @@ export function seasonalLags(season: number | null, maxLag: number): number[] {
   return [season, 2 * season].filter((lag) => lag <= maxLag);
 }
 
-function percentOf(alpha: number): string {
-  return `${Number((alpha * 100).toPrecision(3))}%`;
-}
-
 /** "24 lags tested at 5%: about 1.2 would cross … ; 2 did (lags 7, 19); pure noise does that 34% of the time." */
 export function falseAlarmSentence(note: FalseAlarmNote, alpha: number): string {
-  const head = `${note.tested} lag${note.tested === 1 ? "" : "s"} tested at ${percentOf(alpha)}: about ${formatNumber(note.expected, 2)} would cross the band by chance even for pure noise`;
+  const head = `${note.tested} lag${note.tested === 1 ? "" : "s"} tested at ${formatLevel(alpha)}: about ${formatNumber(note.expected, 2)} would cross the band by chance even for pure noise`;
   if (note.beyond === 0) return `${head}; none did.`;
   return `${head}; ${note.beyond} did (${formatLagList(note.beyondLags)}); pure noise does that ${formatPercent(note.chance)} of the time.`;
 }

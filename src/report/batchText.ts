@@ -3,7 +3,7 @@
  * q-value (the ones to look at first on top), then the count the raw p-values flag against the
  * count the false-discovery rate keeps, and the reasons of series that could not be analysed.
  */
-import { formatNumber, TEST_NAMES, type BatchCheck, type TestKind } from "../core";
+import { formatLevel, formatNumber, TEST_NAMES, type BatchCheck, type TestKind } from "../core";
 import { rowsByQValue } from "./batchOrder";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 import { pCell, numberCell } from "./tableCells";
@@ -51,7 +51,7 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
     `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
   );
   lines.push(
-    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to about ${Number((alpha * 100).toPrecision(3))}% on average (less strictly for short series, where Ljung–Box p-values run a little small in the far tail).`,
+    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to about ${formatLevel(alpha)} on average (less strictly for short series, where Ljung–Box p-values run a little small in the far tail).`,
   );
   for (const row of order) {
     if (row.verdict === null) lines.push(`not analysed: ${row.label}: ${row.reason}`);

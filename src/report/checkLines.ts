@@ -5,6 +5,7 @@
  * from the core, this file only words them.
  */
 import {
+  formatLevel,
   formatNumber,
   pPhrase,
   type BiasCheck,
@@ -18,10 +19,6 @@ export interface CheckFinding {
   readonly text: string;
 }
 
-function percent(alpha: number): string {
-  return `${Number((alpha * 100).toPrecision(3))}%`;
-}
-
 export function volatilityFinding(check: VolatilityCheck): CheckFinding {
   const figures = `Engle's LM = ${formatNumber(check.lm, 4)} over ${check.rows} rows, df ${check.df}, ${pPhrase(check.p)}; McLeod–Li Q = ${formatNumber(check.mcleodLiQ, 4)}, ${pPhrase(check.mcleodLiP)}`;
   return check.flagged
@@ -31,7 +28,7 @@ export function volatilityFinding(check: VolatilityCheck): CheckFinding {
       }
     : {
         flagged: false,
-        text: `No volatility clustering found at ${percent(check.alpha)} (${figures}).`,
+        text: `No volatility clustering found at ${formatLevel(check.alpha)} (${figures}).`,
       };
 }
 
@@ -42,7 +39,7 @@ export function biasFinding(check: BiasCheck): CheckFinding {
         flagged: true,
         text: `The mean differs from zero (${figures}). Residuals and forecast errors should average zero: if these are errors, they run ${check.mean > 0 ? "high" : "low"} on average, which a lag pattern cannot show.`,
       }
-    : { flagged: false, text: `No bias found at ${percent(check.alpha)} (${figures}).` };
+    : { flagged: false, text: `No bias found at ${formatLevel(check.alpha)} (${figures}).` };
 }
 
 export function runsFinding(check: RunsCheck, alpha = 0.05): CheckFinding {
