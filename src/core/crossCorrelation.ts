@@ -13,6 +13,7 @@
  * the pairs of such positions. Two series read from ranges of different sizes are refused.
  * A lag with no pair is NaN. Cost O(n·K).
  */
+import { cellExtent } from "./cells";
 import { centre } from "./centre";
 import { normalQuantile } from "./distributions";
 import { invalid, tooShort } from "./errors";
@@ -47,11 +48,6 @@ export interface CrossCorrelation {
   readonly meanX: number;
   readonly meanY: number;
   readonly rows: readonly CrossLag[];
-}
-
-function cellExtent(series: Series): { start: number; cells: number } {
-  const start = series.start ?? 0;
-  return { start, cells: series.cells ?? start + series.values.length };
 }
 
 function named(series: Series, fallback: string): string {

@@ -3,6 +3,7 @@ export * from "./errors";
 export * from "./types";
 export * from "./sums";
 export * from "./intake";
+export * from "./cells";
 export * from "./textCells";
 export * from "./centre";
 export * from "./autocovariance";

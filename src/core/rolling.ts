@@ -232,15 +232,3 @@ function exactCorrelations(
     throw error;
   }
 }
-
-/**
- * Values by position placed back on the cells the series was read from (its `start` and `cells`),
- * NaN on the label and trimmed gaps: for results that sit beside their input rows.
- */
-export function placeOnCells(byPosition: Float64Array, series: Series): Float64Array {
-  const start = series.start ?? 0;
-  const cells = series.cells ?? start + byPosition.length;
-  const placed = new Float64Array(cells).fill(NaN);
-  placed.set(byPosition, start);
-  return placed;
-}
