@@ -7,6 +7,7 @@
  * the reason and stays out of both families; when no item can be audited the first refusal is
  * thrown. Cost: one audit per series.
  */
+import { batchLabel } from "./batch";
 import { isEcholotError } from "./errors";
 import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
 import { benjaminiHochberg } from "./multiplicity";
@@ -42,7 +43,7 @@ export function auditBatch(
   const alpha = resolveAlpha(options.alpha);
   let firstRefusal: unknown;
   const audited = seriesList.map((series, index) => {
-    const label = series.label === "" ? `series ${index + 1}` : series.label;
+    const label = batchLabel(series, index);
     try {
       return { label, audit: forecastAudit(series, options), problem: "" };
     } catch (error) {

@@ -46,6 +46,11 @@ export interface BatchCheck {
   readonly analysed: number;
 }
 
+/** A series' name among many: its label, or "series i" (counting from 1) when it has none. */
+export function batchLabel(series: Series, index: number): string {
+  return series.label === "" ? `series ${index + 1}` : series.label;
+}
+
 export function batchCheck(seriesList: readonly Series[], options: LagOptions = {}): BatchCheck {
   if (seriesList.length < 2) {
     invalid(
@@ -55,7 +60,7 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
   const alpha = resolveAlpha(options.alpha);
   let firstRefusal: unknown;
   const partial = seriesList.map((series, index) => {
-    const label = series.label === "" ? `series ${index + 1}` : series.label;
+    const label = batchLabel(series, index);
     try {
       const table = noiseCheck(series, options);
       const { q, df, p } = table.joint;
