@@ -112,17 +112,17 @@ export function crossCorrelation(
   }
   const scale = Math.sqrt(cx.sumSquares) * Math.sqrt(cy.sumSquares);
   const band = normalQuantile(1 - alpha / 2) / Math.sqrt(n);
+  const dx = cx.deviations;
+  const dy = cy.deviations;
   const rows: CrossLag[] = [];
   for (let k = -maxLag; k <= maxLag; k++) {
     // Positive k: x at t, y at t + k; negative k: x at t + |k|, y at t.
-    const lead = cx.deviations;
-    const follow = cy.deviations;
     const shiftX = k < 0 ? -k : 0;
     const shiftY = k > 0 ? k : 0;
     const sum = new CompensatedSum();
     let pairs = 0;
     for (let t = 0; t + Math.abs(k) < length; t++) {
-      sum.add((lead[t + shiftX] as number) * (follow[t + shiftY] as number));
+      sum.add((dx[t + shiftX] as number) * (dy[t + shiftY] as number));
       pairs += (present[t + shiftX] as number) & (present[t + shiftY] as number);
     }
     const correlation = pairs > 0 ? sum.value / scale : NaN;
