@@ -6,7 +6,7 @@
  */
 import { isEcholotError } from "../src/core";
 
-export function hostError(error: unknown): CustomFunctions.Error {
+function hostError(error: unknown): CustomFunctions.Error {
   if (error instanceof CustomFunctions.Error) return error;
   if (isEcholotError(error)) {
     const code =

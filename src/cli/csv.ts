@@ -46,7 +46,7 @@ export function readCsv(file: string): CsvTable {
  * is skipped; a numeric column with a stray word further down is read, and the word refused with
  * its row and column, so nothing is silently dropped.
  */
-export function isNumericColumn(table: CsvTable, column: number): boolean {
+function isNumericColumn(table: CsvTable, column: number): boolean {
   return isNumberColumn(table.rows.map((row) => row[column] ?? ""));
 }
 

@@ -6,7 +6,7 @@ import { parseArgs } from "node:util";
 import { parseBandKind, parseTestKind, type LagOptions } from "../core";
 import { UsageError } from "./errors";
 
-export const LAG_OPTION_SPEC = {
+const LAG_OPTION_SPEC = {
   column: { type: "string" },
   lags: { type: "string" },
   season: { type: "string" },

@@ -48,7 +48,7 @@ export function defaultHacLags(n: number): number {
 }
 
 /** Validates L: a whole number from 0 to n − 1. */
-export function resolveHacLags(hacLags: number | null | undefined, n: number): number {
+function resolveHacLags(hacLags: number | null | undefined, n: number): number {
   if (hacLags === null || hacLags === undefined) return defaultHacLags(n);
   if (!(Number.isInteger(hacLags) && hacLags >= 0 && hacLags <= n - 1)) {
     invalid(

@@ -68,7 +68,7 @@ export interface ForecastAudit {
 }
 
 /** Validates h: a whole number from 1 to n − 1 (at least lag h must be left to test). */
-export function resolveHorizon(horizon: number | null | undefined, n: number): number {
+function resolveHorizon(horizon: number | null | undefined, n: number): number {
   if (!(Number.isInteger(horizon) && (horizon as number) >= 1 && (horizon as number) <= n - 1)) {
     invalid(
       `horizon must be a whole number from 1 to ${Math.max(1, n - 1)}, the number of periods ahead the forecasts were made (1 for one-step-ahead; got ${String(horizon)})`,

@@ -8,7 +8,7 @@ import { centre } from "./centre";
 import { invalid, seriesName } from "./errors";
 import type { Series } from "./types";
 
-export function squaredDeviationSeries(series: Series): Series {
+function squaredDeviationSeries(series: Series): Series {
   const { deviations } = centre(series);
   const values = new Float64Array(deviations.length);
   for (let t = 0; t < values.length; t++) {

@@ -47,7 +47,7 @@ export function lagColumns(maxLag: number, frame: LagFrame) {
 }
 
 /** The half-height of the y domain: room for the corridors and the largest |z| up to the pin. */
-export function yLimit(points: readonly LagPoint[], outerLevel: number): number {
+function yLimit(points: readonly LagPoint[], outerLevel: number): number {
   let largest = 0;
   for (const p of points) if (Number.isFinite(p.z)) largest = Math.max(largest, Math.abs(p.z));
   const pin = pinLimit(outerLevel);
@@ -55,7 +55,7 @@ export function yLimit(points: readonly LagPoint[], outerLevel: number): number 
 }
 
 /** ±6, unless the outer corridor itself reaches that far (a very small alpha). */
-export function pinLimit(outerLevel: number): number {
+function pinLimit(outerLevel: number): number {
   return Math.max(PIN_LIMIT, outerLevel * 1.1);
 }
 

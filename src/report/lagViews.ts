@@ -40,7 +40,7 @@ export interface LagPoint {
   readonly zone: Zone | "none";
 }
 
-export function zoneOf(z: number, innerLevel: number, outerLevel: number): Zone | "none" {
+function zoneOf(z: number, innerLevel: number, outerLevel: number): Zone | "none" {
   if (Number.isNaN(z)) return "none";
   const size = Math.abs(z);
   if (size > outerLevel) return "beyond";
