@@ -1,13 +1,16 @@
 /**
- * The two corridors a lag's standardised value z_k is judged against, for the noise check and the
- * forecast audit alike:
+ * The two corridors a lag's standardised value z_k = r_k / se_k is judged against, for the noise
+ * check and the forecast audit alike:
  * - inner: ±z_{1−α/2}, one lag on its own at level α;
  * - outer: ±z_{1−a/2} with the Šidák per-test level a = 1 − (1 − α)^{1/K} (multiplicity.ts), which
  *   holds the level α for the K lags counted together.
- * z is the standard normal quantile (distributions.ts). Cost O(1): two quantiles.
+ * z is the standard normal quantile (distributions.ts). Both comparisons are strict, so a NaN z
+ * (a lag with no pairs) crosses neither and is not counted as tested. Cost O(1) for the levels,
+ * O(K) for the crossings.
  */
 import { normalQuantile } from "./distributions";
 import { sidakLevel } from "./multiplicity";
+import type { VerdictLag } from "./verdict";
 
 export interface CorridorLevels {
   readonly innerLevel: number;
@@ -20,4 +23,40 @@ export function corridorLevels(alpha: number, lags: number): CorridorLevels {
     innerLevel: normalQuantile(1 - alpha / 2),
     outerLevel: normalQuantile(1 - sidakLevel(alpha, lags) / 2),
   };
+}
+
+export interface CorridorCrossings {
+  /** Lag k at index k−1: r_k, z_k and the two corridors (false for lags not counted). */
+  readonly lags: VerdictLag[];
+  /** Lags counted with a defined z. */
+  readonly tested: number;
+  /** Counted lags beyond the inner corridor. */
+  readonly beyondLags: number[];
+}
+
+/**
+ * z_k = r_k / se_k for k = 1..K (`correlation` holds r_0..r_K, `se` lag k at index k−1) and where
+ * each lies; lags below `firstLag` are shown but not counted (h-step forecast errors).
+ */
+export function corridorCrossings(
+  correlation: ArrayLike<number>,
+  se: ArrayLike<number>,
+  levels: CorridorLevels,
+  firstLag = 1,
+): CorridorCrossings {
+  const { innerLevel, outerLevel } = levels;
+  const maxLag = correlation.length - 1;
+  const lags: VerdictLag[] = [];
+  const beyondLags: number[] = [];
+  let tested = 0;
+  for (let k = 1; k <= maxLag; k++) {
+    const r = correlation[k] as number;
+    const z = r / (se[k - 1] as number);
+    const counted = k >= firstLag;
+    const beyond = counted && Math.abs(z) > innerLevel;
+    if (counted && Number.isFinite(z)) tested++;
+    if (beyond) beyondLags.push(k);
+    lags.push({ lag: k, correlation: r, z, beyond, outer: counted && Math.abs(z) > outerLevel });
+  }
+  return { lags, tested, beyondLags };
 }

@@ -19,7 +19,7 @@ import { autocorrelation } from "./autocovariance";
 import { standardErrors } from "./bands";
 import { biasCheck, defaultHacLags, type BiasCheck } from "./bias";
 import { defaultMaxLag } from "./defaultLags";
-import { corridorLevels } from "./corridors";
+import { corridorCrossings, corridorLevels } from "./corridors";
 import { normalTwoSided } from "./distributions";
 import { invalid } from "./errors";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
@@ -107,30 +107,24 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
   const ac = autocorrelation(series, K);
   const se = standardErrors("bartlett", ac, K);
   const counted = K - h + 1;
-  const { innerLevel, outerLevel } = corridorLevels(alpha, counted);
-  const rows: AuditLag[] = [];
-  const beyondLags: number[] = [];
-  let tested = 0;
-  for (let k = 1; k <= K; k++) {
-    const r = ac.correlation[k] as number;
-    const s = se[k - 1] as number;
-    const z = r / s;
-    const isCounted = k >= h;
-    const beyond = isCounted && Math.abs(z) > innerLevel;
-    if (isCounted && Number.isFinite(z)) tested++;
-    if (beyond) beyondLags.push(k);
-    rows.push({
-      lag: k,
-      correlation: r,
+  const levels = corridorLevels(alpha, counted);
+  const { innerLevel, outerLevel } = levels;
+  const crossings = corridorCrossings(ac.correlation, se, levels, h);
+  const { tested, beyondLags } = crossings;
+  const rows: AuditLag[] = crossings.lags.map(({ lag, correlation, z, beyond, outer }) => {
+    const s = se[lag - 1] as number;
+    return {
+      lag,
+      correlation,
       standardError: s,
       band: innerLevel * s,
       z,
       pLag: normalTwoSided(z),
       beyond,
-      outer: isCounted && Math.abs(z) > outerLevel,
-      counted: isCounted,
-    });
-  }
+      outer,
+      counted: lag >= h,
+    };
+  });
   const dependenceTest = laterLagsTest(ac.correlation, ac.n, h);
   const falseAlarm = falseAlarmNote(tested, alpha, beyondLags);
   const testName = h === 1 ? "Ljung–Box" : `Ljung–Box (adjusted for the ${h}-step horizon)`;

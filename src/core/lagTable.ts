@@ -8,7 +8,7 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { robustVariances, standardErrors } from "./bands";
-import { corridorLevels } from "./corridors";
+import { corridorCrossings, corridorLevels } from "./corridors";
 import { normalTwoSided } from "./distributions";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
 import { sidakAdjust } from "./multiplicity";
@@ -114,18 +114,9 @@ function screen(series: Series, options: LagOptions): Screen {
   const needsRobust = bandKind === "robust" || testKind === "robust";
   const robust = needsRobust ? robustVariances(ac, K) : undefined;
   const se = standardErrors(bandKind, ac, K, robust);
-  const { innerLevel, outerLevel } = corridorLevels(alpha, K);
-  const lags: VerdictLag[] = [];
-  const beyondLags: number[] = [];
-  let tested = 0;
-  for (let k = 1; k <= K; k++) {
-    const correlation = ac.correlation[k] as number;
-    const z = correlation / (se[k - 1] as number);
-    const beyond = Math.abs(z) > innerLevel;
-    if (Number.isFinite(z)) tested++;
-    if (beyond) beyondLags.push(k);
-    lags.push({ lag: k, correlation, z, beyond, outer: Math.abs(z) > outerLevel });
-  }
+  const levels = corridorLevels(alpha, K);
+  const { innerLevel, outerLevel } = levels;
+  const { lags, tested, beyondLags } = corridorCrossings(ac.correlation, se, levels);
   return {
     resolved,
     subject,
