@@ -7,14 +7,18 @@
  * vitest.config.mts leaves this folder out, saying so plainly, only on a machine without Chromium
  * and without CI=true; with CI=true a missing Chromium fails these tests.
  */
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { mkdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { builtPane, CHROMIUM, INSTALL_HINT, ROOT, servePane, type PaneServer } from "./paneServer";
-
-const haveChromium = existsSync(CHROMIUM);
+import {
+  builtPane,
+  launchChromium,
+  ROOT,
+  servePane,
+  type Browser,
+  type PaneServer,
+} from "./paneServer";
 
 const SERIES_F = readFileSync(join(ROOT, "test", "fixtures", "series-f.csv"), "utf8");
 const XSS_LABEL = "<img src=x onerror=alert(1)>";
@@ -24,30 +28,15 @@ describe("the built pane in a browser, standalone", () => {
   let server: PaneServer;
   let context: BrowserContext;
   let page: Page;
-  let profile: string;
+  let browser: Browser | undefined;
   const requests: string[] = [];
   const dialogs: string[] = [];
   const problems: string[] = [];
 
   beforeAll(async () => {
-    if (!haveChromium) throw new Error(`there is no Chromium at ${CHROMIUM}: ${INSTALL_HINT}`);
     server = await servePane(builtPane());
-    profile = mkdtempSync(join(tmpdir(), "echolot-chromium-"));
-    context = await chromium.launchPersistentContext(profile, {
-      executablePath: CHROMIUM,
-      headless: true,
-      viewport: { width: 360, height: 900 },
-      args: [
-        "--headless",
-        "--no-sandbox",
-        "--disable-gpu",
-        "--disable-quic",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
-    });
+    browser = await launchChromium();
+    context = browser.context;
     context.on("request", (request) => requests.push(request.url()));
     // Anything not on 127.0.0.1 fails at once, so a request out could not succeed either.
     await context.route("**/*", (route) =>
@@ -83,9 +72,8 @@ describe("the built pane in a browser, standalone", () => {
   }, 180_000);
 
   afterAll(async () => {
-    await context?.close();
+    await browser?.close();
     await server?.close();
-    if (profile !== undefined) rmSync(profile, { recursive: true, force: true });
   });
 
   async function paste(text: string): Promise<void> {

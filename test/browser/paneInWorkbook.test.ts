@@ -4,15 +4,19 @@
  * own host glue runs end to end — reading the selection, pinning and following a range, placing
  * a live report and a snapshot — in Chromium. Runs (or skips) like pane.test.ts.
  */
-import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { buildSync } from "esbuild";
-import { chromium, type BrowserContext, type Page } from "playwright-core";
+import type { BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { builtPane, CHROMIUM, INSTALL_HINT, ROOT, servePane, type PaneServer } from "./paneServer";
-
-const haveChromium = existsSync(CHROMIUM);
+import {
+  builtPane,
+  launchChromium,
+  ROOT,
+  servePane,
+  type Browser,
+  type PaneServer,
+} from "./paneServer";
 
 function stubOfficeJs(): string {
   const lines = readFileSync(join(ROOT, "test", "fixtures", "series-f.csv"), "utf8")
@@ -39,28 +43,13 @@ describe("the built pane in a workbook (simulated host)", () => {
   let server: PaneServer;
   let context: BrowserContext;
   let page: Page;
-  let profile: string;
+  let browser: Browser | undefined;
   const problems: string[] = [];
 
   beforeAll(async () => {
-    if (!haveChromium) throw new Error(`there is no Chromium at ${CHROMIUM}: ${INSTALL_HINT}`);
     server = await servePane(builtPane());
-    profile = mkdtempSync(join(tmpdir(), "echolot-chromium-"));
-    context = await chromium.launchPersistentContext(profile, {
-      executablePath: CHROMIUM,
-      headless: true,
-      viewport: { width: 360, height: 900 },
-      args: [
-        "--headless",
-        "--no-sandbox",
-        "--disable-gpu",
-        "--disable-quic",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-      ],
-    });
+    browser = await launchChromium();
+    context = browser.context;
     const stub = stubOfficeJs();
     await context.route("**/*", (route) => {
       const url = new URL(route.request().url());
@@ -80,9 +69,8 @@ describe("the built pane in a workbook (simulated host)", () => {
   }, 180_000);
 
   afterAll(async () => {
-    await context?.close();
+    await browser?.close();
     await server?.close();
-    if (profile !== undefined) rmSync(profile, { recursive: true, force: true });
   });
 
   const sheet = (name: string) =>

@@ -3,9 +3,11 @@
  * or older than the pane's sources) served on 127.0.0.1, and Debian's Chromium located.
  */
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, readFileSync, rmSync, statSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { createServer, type Server } from "node:http";
 import { dirname, extname, join, normalize, resolve } from "node:path";
+import { chromium, type BrowserContext } from "playwright-core";
 
 export const ROOT = resolve(__dirname, "..", "..");
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -98,5 +100,45 @@ export async function servePane(dir: string): Promise<PaneServer> {
   return {
     origin: `http://127.0.0.1:${port}`,
     close: () => new Promise((done) => server.close(() => done())),
+  };
+}
+
+export interface Browser {
+  readonly context: BrowserContext;
+  /** The fresh profile folder, removed by `close`. */
+  readonly profile: string;
+  close(): Promise<void>;
+}
+
+/**
+ * Debian's Chromium, headless, in a fresh profile, with the flags that keep it off the network
+ * (PLATFORM.md), at the pane's width. Throws with the install hint when there is no Chromium.
+ */
+export async function launchChromium(): Promise<Browser> {
+  if (!existsSync(CHROMIUM))
+    throw new Error(`there is no Chromium at ${CHROMIUM}: ${INSTALL_HINT}`);
+  const profile = mkdtempSync(join(tmpdir(), "echolot-chromium-"));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    viewport: { width: 360, height: 900 },
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
+  });
+  return {
+    context,
+    profile,
+    async close() {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
   };
 }
