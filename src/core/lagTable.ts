@@ -70,6 +70,8 @@ export interface LagTable extends ResolvedLagOptions {
   readonly innerLevel: number;
   /** Outer corridor ±z_{1−a/2}, a = 1 − (1−α)^{1/K}. */
   readonly outerLevel: number;
+  /** The level the joint test's χ² p is compared with for `structure` (the verdict's common level). */
+  readonly jointLevel: number;
   readonly rows: readonly LagRow[];
   readonly joint: JointTest;
   readonly falseAlarm: FalseAlarmNote;
@@ -83,6 +85,8 @@ export interface NoiseCheck extends ResolvedLagOptions {
   /** Values present. */
   readonly n: number;
   readonly joint: JointTest;
+  /** The level the joint test's χ² p is compared with for `structure` (the verdict's common level). */
+  readonly jointLevel: number;
   readonly falseAlarm: FalseAlarmNote;
   readonly verdict: Verdict;
 }
@@ -177,6 +181,7 @@ export function noiseCheck(series: Series, options: LagOptions = {}): NoiseCheck
     subject: s.subject,
     n: s.ac.n,
     joint,
+    jointLevel: alpha,
     falseAlarm,
     verdict,
   };
@@ -233,6 +238,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
     autocovariance: ac.autocovariance,
     innerLevel,
     outerLevel,
+    jointLevel: alpha,
     rows,
     joint,
     falseAlarm,
