@@ -163,3 +163,34 @@ function gapOrRefusal(cell: unknown, index: number, describe: PositionNamer): nu
   }
   invalid(`${where} holds a value that is not a number; only numbers, blanks and #N/A are read`);
 }
+
+/**
+ * A series from a column of numbers with NaN at its gaps (a table column as the table reader
+ * keeps it): leading and trailing gaps trimmed, interior gaps in place. The values are a view of
+ * the column, not a copy, so a long column costs one presence byte a value more.
+ */
+export function seriesFromColumn(values: Float64Array, label: string): Series {
+  let first = 0;
+  let last = values.length;
+  while (first < last && Number.isNaN(values[first] as number)) first++;
+  while (last > first && Number.isNaN(values[last - 1] as number)) last--;
+  if (first === last) tooShort(`${seriesName(label)} has no values: give a column with numbers`);
+  const kept = values.subarray(first, last);
+  const present = new Uint8Array(kept.length);
+  let count = 0;
+  for (let i = 0; i < kept.length; i++) {
+    if (!Number.isNaN(kept[i] as number)) {
+      present[i] = 1;
+      count++;
+    }
+  }
+  return {
+    values: kept,
+    present,
+    label,
+    count,
+    gaps: kept.length - count,
+    start: first,
+    cells: values.length,
+  };
+}
