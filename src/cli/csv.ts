@@ -14,7 +14,9 @@ import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { parse } from "csv-parse";
 import {
+  csvParseOptions,
   delimiterName,
+  extraLines,
   detectDialect,
   invalid,
   TableBuilder,
@@ -144,18 +146,13 @@ export async function streamRecords(
     if (encoding !== "utf-8") yield Buffer.from(decoder.decode(), "utf8");
   }
 
-  const parser = parse({
-    delimiter: dialect.delimiter,
-    bom: true,
-    relax_column_count: true,
-    skip_empty_lines: false,
-  });
+  const parser = parse(csvParseOptions(dialect));
   const feeding = pipeline(Readable.from(bytes()), parser);
   let line = 1;
   try {
     for await (const record of parser as AsyncIterable<string[]>) {
       sink(record, line);
-      line += 1 + lineBreaksIn(record);
+      line += 1 + extraLines(record);
     }
     await feeding;
   } catch (error) {
@@ -171,18 +168,6 @@ export async function streamRecords(
     throw error;
   }
   return dialect;
-}
-
-/** Line breaks inside quoted fields: the record spans that many more lines. */
-function lineBreaksIn(record: readonly string[]): number {
-  let breaks = 0;
-  for (const field of record) {
-    if (field.length === 0) continue;
-    if (field.includes("\n") || field.includes("\r")) {
-      breaks += field.split(/\r\n|\n|\r/).length - 1;
-    }
-  }
-  return breaks;
 }
 
 /** The rules of the file's cells: its decimal mark, percent cells, gap words. */

@@ -101,7 +101,10 @@ export function writeOutFile(
 export function writeStdout(text: string): Promise<number> {
   return new Promise((resolve) => {
     const stdout = process.stdout;
+    let settled = false;
     const failed = (error: NodeJS.ErrnoException) => {
+      if (settled) return;
+      settled = true;
       if (error.code === "EPIPE") resolve(0);
       else {
         process.stderr.write(`echolot: ${writeFailure("standard output", error)}\n`);
@@ -112,7 +115,10 @@ export function writeStdout(text: string): Promise<number> {
     try {
       stdout.write(text, (error) => {
         if (error) failed(error);
-        else resolve(0);
+        else if (!settled) {
+          settled = true;
+          resolve(0);
+        }
       });
     } catch (error) {
       failed(error as NodeJS.ErrnoException);

@@ -37,7 +37,7 @@ export function notSeriesReason(column: TableColumn): string | undefined {
     case "serial dates":
       return `holds whole numbers that read as spreadsheet dates (${examples(column)}): a time column`;
     case "counter":
-      return `holds steadily ${column.numbers > 1 ? "rising or falling" : ""} whole numbers (${examples(column)}): an id or time column`;
+      return `holds whole numbers that only rise or only fall (${examples(column)}): an id or time column`;
   }
 }
 

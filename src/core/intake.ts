@@ -10,7 +10,7 @@
  * Nothing is silently dropped: dropping a value would shift every lag after it. O(n), one pass
  * over the cells, no copy of them.
  */
-import { invalid, seriesName, tooShort } from "./errors";
+import { EcholotError, invalid, seriesName, tooShort } from "./errors";
 import type { Series } from "./types";
 
 /** How a position is named in messages, from its 0-based index in the list given. */
@@ -193,4 +193,41 @@ export function seriesFromColumn(values: Float64Array, label: string): Series {
     start: first,
     cells: values.length,
   };
+}
+
+/** One column of a block: its series, or why it has none. */
+export interface BlockColumn {
+  readonly label: string;
+  /** The column's series, or undefined when it could not be read. */
+  readonly series: Series | undefined;
+  /** Why the column could not be read ("" when it was). */
+  readonly problem: string;
+}
+
+/**
+ * A block's columns, each read by the intake rules (a text first cell is its label). A column that
+ * cannot be read (empty, or holding text) keeps its place with the reason, so one bad column does
+ * not take the others down with it. Rows may be ragged; the widest row sets the columns.
+ */
+export function blockColumns(rows: readonly (readonly unknown[])[]): BlockColumn[] {
+  let width = 0;
+  for (const row of rows) width = Math.max(width, row.length);
+  const columns: BlockColumn[] = [];
+  for (let c = 0; c < width; c++) {
+    const cells = rows.map((r) => r[c]);
+    const head = cells[0];
+    const fallback = `column ${c + 1}`;
+    try {
+      const series = seriesFromValues(cells, {
+        label: fallback,
+        describePosition: (i) => `row ${i + 1}, column ${c + 1} of the block`,
+      });
+      columns.push({ label: series.label, series, problem: "" });
+    } catch (error) {
+      if (!(error instanceof EcholotError)) throw error;
+      const label = typeof head === "string" && head.trim() !== "" ? head.trim() : fallback;
+      columns.push({ label, series: undefined, problem: error.message });
+    }
+  }
+  return columns;
 }

@@ -136,11 +136,11 @@ class ColumnTally {
     this.values?.push(NaN);
     this.offender ??= { line, text };
     if (this.examples.length < 3) this.examples.push(text.trim());
-    if (numeric || looksNumeric(text)) this.numericTexts++;
-    else {
+    if (!numeric && looksLikeDate(text)) {
       this.texts++;
-      if (looksLikeDate(text)) this.dates++;
-    }
+      this.dates++;
+    } else if (numeric || looksNumeric(text)) this.numericTexts++;
+    else this.texts++;
   }
 
   finish(): TableColumn {
@@ -291,4 +291,19 @@ export function cellRefusal(where: string, cell: string, hint: (text: string) =>
     return `${where} holds ${shown}, which is not a finite number`;
   }
   return `${where} holds "${shown}", which is not a number: ${hint(text)}`;
+}
+
+/**
+ * How many lines a record spans beyond its first: the line breaks inside its quoted fields. A
+ * parser that yields every line as a record (empty lines too) then gives each record's first line
+ * as 1 + the lines of the records before it.
+ */
+export function extraLines(record: readonly string[]): number {
+  let breaks = 0;
+  for (const field of record) {
+    if (field.length > 0 && (field.includes("\n") || field.includes("\r"))) {
+      breaks += field.split(/\r\n|\n|\r/).length - 1;
+    }
+  }
+  return breaks;
 }

@@ -102,3 +102,22 @@ export function detectDialect(
 export function delimiterName(delimiter: Delimiter): string {
   return delimiter === "\t" ? "tab" : delimiter === ";" ? "semicolon" : "comma";
 }
+
+/**
+ * The options of the CSV parser (csv-parse) for a dialect, the same for the CLI's stream and the
+ * pane's text: every line is a record (an empty line too: it is a row of gaps), records may differ
+ * in width (the table reader names the line that does), a UTF-8 byte-order mark is dropped.
+ */
+export function csvParseOptions(dialect: Dialect): {
+  delimiter: Delimiter;
+  bom: true;
+  relax_column_count: true;
+  skip_empty_lines: false;
+} {
+  return {
+    delimiter: dialect.delimiter,
+    bom: true,
+    relax_column_count: true,
+    skip_empty_lines: false,
+  };
+}

@@ -11,7 +11,7 @@ import { figureCell, numberCell, pCell } from "./tableCells";
 
 export function auditText(batch: AuditBatch, horizon: number, season: number | null): string {
   const { alpha } = batch;
-  const width = Math.max(6, ...batch.items.map((item) => item.label.length));
+  const width = batch.items.reduce((w, item) => Math.max(w, item.label.length), 6);
   const first = batch.items
     .map((item) => item.audit)
     .find((audit): audit is ForecastAudit => audit !== null);
@@ -27,8 +27,8 @@ export function auditText(batch: AuditBatch, horizon: number, season: number | n
     const audits = batch.items.flatMap((item) => (item.audit === null ? [] : [item.audit]));
     const spread = (pick: (audit: ForecastAudit) => number) => {
       const values = audits.map(pick);
-      const lo = Math.min(...values);
-      const hi = Math.max(...values);
+      const lo = values.reduce((m, v) => Math.min(m, v), Infinity);
+      const hi = values.reduce((m, v) => Math.max(m, v), -Infinity);
       return lo === hi ? String(lo) : `${lo}–${hi}`;
     };
     const test = horizon === 1 ? "Ljung–Box" : `Ljung–Box adjusted for the ${horizon}-step horizon`;
