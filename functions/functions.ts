@@ -281,6 +281,10 @@ export function seriesBatchCheck(
   return cellFunction(() => {
     const columns = readBlock(block);
     const read = columns.flatMap((c) => (c.series === undefined ? [] : [c.series]));
+    // With fewer than two readable columns there is no batch: the first column's own refusal
+    // says what to fix.
+    const refused = columns.find((c) => c.refusal !== undefined);
+    if (read.length < 2 && refused !== undefined) throw refused.refusal;
     const batch = batchCheck(read, {
       maxLag: optionalNumber("maxLag", maxLag),
       season: optionalNumber("season", season),
@@ -292,8 +296,9 @@ export function seriesBatchCheck(
     // takes its place between them, with its reason in the verdict cell.
     let next = 0;
     const body = columns.flatMap((c) => {
-      if (c.series === undefined)
-        return row(c.label, "", "", "", "", "", `not analysed: ${c.problem}`);
+      if (c.series === undefined) {
+        return row(c.label, "", "", "", "", "", `not analysed: ${c.refusal?.message ?? ""}`);
+      }
       const r = batch.rows[next++] as BatchRow;
       return row(r.label, r.n, r.q, r.df, r.p, r.qValue, r.verdict ?? `not analysed: ${r.reason}`);
     });

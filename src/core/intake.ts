@@ -200,8 +200,8 @@ export interface BlockColumn {
   readonly label: string;
   /** The column's series, or undefined when it could not be read. */
   readonly series: Series | undefined;
-  /** Why the column could not be read ("" when it was). */
-  readonly problem: string;
+  /** Why the column could not be read (undefined when it was). */
+  readonly refusal: EcholotError | undefined;
 }
 
 /**
@@ -222,11 +222,11 @@ export function blockColumns(rows: readonly (readonly unknown[])[]): BlockColumn
         label: fallback,
         describePosition: (i) => `row ${i + 1}, column ${c + 1} of the block`,
       });
-      columns.push({ label: series.label, series, problem: "" });
+      columns.push({ label: series.label, series, refusal: undefined });
     } catch (error) {
       if (!(error instanceof EcholotError)) throw error;
       const label = typeof head === "string" && head.trim() !== "" ? head.trim() : fallback;
-      columns.push({ label, series: undefined, problem: error.message });
+      columns.push({ label, series: undefined, refusal: error });
     }
   }
   return columns;
