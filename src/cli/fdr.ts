@@ -16,6 +16,7 @@ import { formatOption, type ParsedCommand } from "./options";
 export const FDR_OPTIONS = ["json", "format"];
 
 const VERDICTS = new Set(["clear", "watch", "structure", "short"]);
+const REFERENCES = new Set(["permutation", "chi-square", "monte-carlo"]);
 
 function isNumberOrNull(x: unknown): boolean {
   return x === null || (typeof x === "number" && Number.isFinite(x));
@@ -38,14 +39,16 @@ function partLine(text: string, where: string): SeriesResult {
     isNumberOrNull(r.statistic) &&
     isNumberOrNull(r.df) &&
     (r.p === null || (typeof r.p === "number" && r.p >= 0 && r.p <= 1)) &&
-    (r.reference === null || typeof r.reference === "string") &&
+    (r.reference === null || REFERENCES.has(r.reference as string)) &&
+    typeof r.draws === "number" &&
+    typeof r.pBound === "boolean" &&
     (r.verdict === null || VERDICTS.has(r.verdict as string)) &&
     typeof r.reason === "string" &&
     typeof r.alpha === "number" &&
     TEST_KINDS.includes(r.test as never);
   if (!ok) {
     invalid(
-      `${where} lacks a field of echolot batch --format jsonl (id, n, statistic, df, p, reference, verdict, reason, alpha, test)`,
+      `${where} lacks a field of echolot batch --format jsonl (id, n, statistic, df, p, reference, draws, pBound, verdict, reason, alpha, test)`,
     );
   }
   return r as unknown as SeriesResult;

@@ -9,7 +9,8 @@
  * The merged rows are ordered by id (code-unit order), so the merge does not depend on how the
  * series were split or in which order the parts arrive.
  */
-import { batchLabel, type BatchCheck, type BatchRow } from "./batch";
+import { batchLabel, boundedQValues, type BatchCheck, type BatchRow } from "./batch";
+import { isPValueBound } from "./distributions";
 import { invalid, isEcholotError } from "./errors";
 import { noiseCheck } from "./lagTable";
 import { benjaminiHochberg } from "./multiplicity";
@@ -24,10 +25,12 @@ export interface SeriesResult {
   readonly statistic: number | null;
   readonly df: number | null;
   readonly p: number | null;
-  /** Which reference distribution p comes from ("chi-square", "permutation", …). */
-  readonly reference: string | null;
-  /** Draws of a permutation or Monte Carlo reference, when p comes from one. */
-  readonly draws?: number;
+  /** Which reference p comes from ("permutation", "chi-square", …; null when not analysed). */
+  readonly reference: BatchRow["reference"];
+  /** Draws behind p (0 for a χ² tail). */
+  readonly draws: number;
+  /** p is only an upper bound (no draw reached the statistic, or the 1e-300 floor). */
+  readonly pBound: boolean;
   readonly verdict: VerdictWord | null;
   /** The verdict's reason, or why the series could not be analysed. */
   readonly reason: string;
@@ -47,21 +50,23 @@ export function seriesResult(
   const alpha = resolveAlpha(options.alpha);
   const test = parseTestKind(options.testKind);
   try {
+    // The same p as the whole batch's (batch.ts): the joint p the verdict uses.
     const check = noiseCheck(series, options);
-    const joint = check.joint as typeof check.joint & { reference?: string; draws?: number };
-    const base = {
+    const exact = check.levels.jointP;
+    return {
       id,
       n: check.n,
-      statistic: joint.q,
-      df: joint.df,
-      p: joint.p,
-      reference: joint.reference ?? "chi-square",
+      statistic: check.joint.q,
+      df: check.joint.df,
+      p: exact.p,
+      reference: exact.reference,
+      draws: exact.draws,
+      pBound: exact.bound || isPValueBound(exact.p),
       verdict: check.verdict.word,
       reason: check.verdict.reason,
       alpha,
       test,
     };
-    return joint.draws === undefined ? base : { ...base, draws: joint.draws };
   } catch (error) {
     if (!isEcholotError(error)) throw error;
     return {
@@ -71,6 +76,8 @@ export function seriesResult(
       df: null,
       p: null,
       reference: null,
+      draws: 0,
+      pBound: false,
       verdict: null,
       reason: error.message,
       alpha,
@@ -105,13 +112,18 @@ export function mergeSeriesResults(results: readonly SeriesResult[]): BatchCheck
   }
   const sorted = results.slice().sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   const qValues = benjaminiHochberg(sorted.map((r) => r.p ?? NaN));
+  const qBounds = boundedQValues(sorted.map((r) => ({ p: r.p ?? NaN, pBound: r.pBound })));
   const rows: BatchRow[] = sorted.map((r, i) => ({
     label: r.id,
     n: r.n,
     q: r.statistic ?? NaN,
     df: r.df ?? 0,
     p: r.p ?? NaN,
+    reference: r.reference,
+    draws: r.draws,
+    pBound: r.pBound,
     qValue: qValues[i] as number,
+    qValueBound: qBounds[i] as boolean,
     verdict: r.verdict,
     reason: r.reason,
   }));
