@@ -9,7 +9,7 @@
  * - Lines: an empty line is a record (a row of gaps); each record's first line is counted from
  *   the line breaks before it, so messages name the file's own line numbers.
  */
-import { createReadStream } from "node:fs";
+import { createReadStream, statSync } from "node:fs";
 import { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { parse } from "csv-parse";
@@ -76,6 +76,20 @@ function encodingOf(head: Buffer, origin: string): Encoding {
   return "utf-8";
 }
 
+/**
+ * About how many lines a file has, from its size and the line length at its start, so kept
+ * columns are allocated once at about their final size instead of growing (growing holds the old
+ * and the new buffer at once). Undefined for standard input, whose size is not known.
+ */
+function expectedRows(reading: Reading, start: Buffer, ended: boolean): number | undefined {
+  let lines = 0;
+  for (let i = start.indexOf(10); i >= 0; i = start.indexOf(10, i + 1)) lines++;
+  if (ended) return lines + 1;
+  if (reading.file === "-" || lines === 0) return undefined;
+  const size = statSync(reading.file).size;
+  return Math.ceil((size / start.length) * lines * 1.02) + 16;
+}
+
 function openSource(reading: Reading): AsyncIterable<Buffer> {
   if (reading.file === "-") return process.stdin;
   return createReadStream(reading.file, { highWaterMark: SAMPLE_BYTES });
@@ -99,7 +113,7 @@ export type RecordSink = (record: readonly string[], line: number) => void;
  */
 export async function streamRecords(
   reading: Reading,
-  open: (dialect: Dialect) => RecordSink,
+  open: (dialect: Dialect, expectedRows: number | undefined) => RecordSink,
 ): Promise<Dialect> {
   const chunks = openSource(reading)[Symbol.asyncIterator]();
   // The start of the file: enough bytes to know its encoding and dialect.
@@ -124,7 +138,7 @@ export async function streamRecords(
   const decoder = new TextDecoder(encoding);
   const sample = new TextDecoder(encoding).decode(start, { stream: !ended });
   const dialect = detectDialect(sample, ended, reading.dialect);
-  const sink = open(dialect);
+  const sink = open(dialect, expectedRows(reading, start, ended));
 
   // UTF-8 goes to the parser as it is (the parser drops its byte-order mark); UTF-16 is decoded
   // and handed over as UTF-8.
@@ -184,13 +198,14 @@ export async function readTable(
   keep?: (index: number, name: string) => boolean,
 ): Promise<Table> {
   let builder: TableBuilder | undefined;
-  await streamRecords(reading, (dialect) => {
+  await streamRecords(reading, (dialect, expectedRows) => {
     builder = new TableBuilder({
       origin: reading.origin,
       header: reading.header,
       cells: cellRulesOf(reading, dialect),
       words: CLI_WORDS,
       ...(keep === undefined ? {} : { keep }),
+      ...(expectedRows === undefined ? {} : { expectedRows }),
     });
     return (record, line) => (builder as TableBuilder).push(record, line);
   });

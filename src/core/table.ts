@@ -37,6 +37,8 @@ export interface TableOptions {
   readonly words: OptionWords;
   /** Which columns keep their values (default all); the others are only described. */
   readonly keep?: (index: number, name: string) => boolean;
+  /** About how many rows to expect (from the file size), so kept columns rarely grow. */
+  readonly expectedRows?: number;
 }
 
 /** The first refused cell of a column. */
@@ -100,8 +102,9 @@ class ColumnTally {
     readonly index: number,
     readonly name: string,
     keep: boolean,
+    capacity: number | undefined,
   ) {
-    this.values = keep ? new GrowableNumbers() : null;
+    this.values = keep ? new GrowableNumbers(capacity) : null;
   }
 
   number(value: number, text: string, line: number): void {
@@ -237,7 +240,12 @@ export class TableBuilder {
     const keep = this.options.keep ?? (() => true);
     this.tallies = record.map((cell, c) => {
       const name = this.hasHeader ? cell.trim() : "";
-      return new ColumnTally(c, name === "" ? `column ${c + 1}` : name, keep(c, name));
+      return new ColumnTally(
+        c,
+        name === "" ? `column ${c + 1}` : name,
+        keep(c, name),
+        this.options.expectedRows,
+      );
     });
   }
 
