@@ -20,6 +20,7 @@ import { sideChecksText, type SideChecks } from "../report/sideChecksText";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
+import { releaseBetweenSteps } from "./memory";
 import { lagTableJson, sideChecksJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
@@ -42,6 +43,7 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
     readingFrom(file, values),
     textOption(values, "column"),
   );
+  releaseBetweenSteps(series.count);
   const result = lagTable(series, options);
   const side = sideChecks(series, result);
   return values.json === true
@@ -49,14 +51,17 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
     : `read: ${source}\n\n${lagTableText(result)}\n\n${sideChecksText(side)}`;
 }
 
+/** The side checks one after the other, the garbage of each released before the next. */
 function sideChecks(series: Series, table: LagTable): SideChecks {
+  const step = <T>(compute: () => T): T | string => {
+    releaseBetweenSteps(series.count);
+    return resultOrReason(compute);
+  };
   return {
     alpha: table.alpha,
-    volatility: resultOrReason(() =>
-      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
-    ),
-    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
-    runs: resultOrReason(() => runsCheck(series)),
-    normality: resultOrReason(() => normalityCheck(series)),
+    volatility: step(() => volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha })),
+    bias: step(() => biasCheck(series, { alpha: table.alpha })),
+    runs: step(() => runsCheck(series)),
+    normality: step(() => normalityCheck(series)),
   };
 }
