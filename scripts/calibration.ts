@@ -205,7 +205,7 @@ function plan(scale: number): Job[] {
     bias: 0,
     phi: 0,
     replications: reps(1500),
-    seed: seed++,
+    seed,
   });
   return jobs;
 }
