@@ -95,7 +95,7 @@ function plan(scale: number): Job[] {
     for (const n of LENGTHS) {
       for (const season of [null, 12] as const) {
         if (season !== null && (law !== "normal" || n < 52)) continue;
-        const r = n === 1000 ? 2000 : 4000;
+        const r = n === 1000 ? 800 : 2000;
         jobs.push({
           kind: "size",
           n,
@@ -117,7 +117,7 @@ function plan(scale: number): Job[] {
       alpha: 0.01,
       season: null,
       robust: false,
-      replications: reps(n === 1000 ? 1000 : 3000),
+      replications: reps(n === 1000 ? 500 : 1500),
       seed: seed++,
     });
   }
@@ -129,7 +129,7 @@ function plan(scale: number): Job[] {
       alpha: 0.001,
       season: null,
       robust: false,
-      replications: reps(2000),
+      replications: reps(n === 52 ? 400 : 300),
       seed: seed++,
     });
   }
@@ -142,7 +142,7 @@ function plan(scale: number): Job[] {
         alpha: 0.05,
         season: null,
         robust,
-        replications: reps(n === 1000 ? 1000 : 2000),
+        replications: reps(n === 1000 ? 400 : 1000),
         seed: seed++,
       });
     }
@@ -154,7 +154,7 @@ function plan(scale: number): Job[] {
   ];
   for (const alternative of alternatives) {
     for (const n of [52, 104, 260] as const) {
-      jobs.push({ kind: "power", n, alternative, replications: reps(2000), seed: seed++ });
+      jobs.push({ kind: "power", n, alternative, replications: reps(1000), seed: seed++ });
     }
   }
   for (const n of [52, 104, 260] as const) {
@@ -172,7 +172,7 @@ function plan(scale: number): Job[] {
         thetas,
         bias: 0,
         phi: 0,
-        replications: reps(1500),
+        replications: reps(n === 260 ? 500 : 1000),
         seed: seed++,
       });
     }
@@ -184,7 +184,7 @@ function plan(scale: number): Job[] {
     thetas: [],
     bias: 0.3,
     phi: 0,
-    replications: reps(1000),
+    replications: reps(500),
     seed: seed++,
   });
   jobs.push({
@@ -194,7 +194,7 @@ function plan(scale: number): Job[] {
     thetas: [],
     bias: 0,
     phi: 0.3,
-    replications: reps(1000),
+    replications: reps(500),
     seed: seed++,
   });
   jobs.push({
@@ -204,7 +204,7 @@ function plan(scale: number): Job[] {
     thetas: [],
     bias: 0,
     phi: 0,
-    replications: reps(1500),
+    replications: reps(1000),
     seed,
   });
   return jobs;
