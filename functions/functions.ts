@@ -12,6 +12,7 @@ import {
   pReferenceLabel,
   batchCheck,
   biasCheck,
+  blockColumns,
   crossCorrelation,
   forecastAudit,
   invalid,
@@ -25,11 +26,11 @@ import {
   resolveLagCount,
   rollingCheck,
   runsCheck,
-  seriesFromValues,
   volatilityCheck,
+  type BatchRow,
+  type BlockColumn,
   type LagOptions,
   type LagTable,
-  type Series,
 } from "../src/core";
 import { optionalKeyword, optionalNumber, readSeries } from "./arguments";
 import { lagTableHeader, lagTableValues } from "../src/report/lagTableHeader";
@@ -279,16 +280,29 @@ export function seriesBatchCheck(
   alpha?: number,
 ): any[][] {
   return cellFunction(() => {
-    const batch = batchCheck(readBlock(block), {
+    const columns = readBlock(block);
+    const read = columns.flatMap((c) => (c.series === undefined ? [] : [c.series]));
+    // With fewer than two readable columns there is no batch: the first column's own refusal
+    // says what to fix.
+    const refused = columns.find((c) => c.refusal !== undefined);
+    if (read.length < 2 && refused !== undefined) throw refused.refusal;
+    const batch = batchCheck(read, {
       maxLag: optionalNumber("maxLag", maxLag),
       season: optionalNumber("season", season),
       fittedParams: optionalNumber("fittedParams", fittedParams),
       alpha: optionalNumber("alpha", alpha),
     });
     const header: Cell[] = ["label", "n", "Q", "df", "p", "q-value", "verdict"];
-    const body = batch.rows.flatMap((r) =>
-      row(r.label, r.n, r.q, r.df, r.p, r.qValue, r.verdict ?? `not analysed: ${r.reason}`),
-    );
+    // The batch rows come in the order of the columns read; a column that could not be read
+    // takes its place between them, with its reason in the verdict cell.
+    let next = 0;
+    const body = columns.flatMap((c) => {
+      if (c.series === undefined) {
+        return row(c.label, "", "", "", "", "", `not analysed: ${c.refusal?.message ?? ""}`);
+      }
+      const r = batch.rows[next++] as BatchRow;
+      return row(r.label, r.n, r.q, r.df, r.p, r.qValue, r.verdict ?? `not analysed: ${r.reason}`);
+    });
     return [header, ...body];
   });
 }
@@ -365,24 +379,10 @@ export function seriesNormalCheck(series: any[][]): any[][] {
   });
 }
 
-/** A block's columns as series, each read by the intake rules (a text first cell is its label). */
-function readBlock(block: unknown): Series[] {
+/** A block's columns, each read by the intake rules; a column that cannot be read keeps its place. */
+function readBlock(block: unknown): BlockColumn[] {
   if (!Array.isArray(block) || !block.every((r) => Array.isArray(r))) {
     invalid("block must be a range of cells with one series per column, such as B1:F241");
   }
-  const rows = block as readonly (readonly unknown[])[];
-  const columns = Math.max(0, ...rows.map((r) => r.length));
-  const series: Series[] = [];
-  for (let c = 0; c < columns; c++) {
-    series.push(
-      seriesFromValues(
-        rows.map((r) => r[c]),
-        {
-          label: `column ${c + 1}`,
-          describePosition: (i) => `row ${i + 1}, column ${c + 1} of the block`,
-        },
-      ),
-    );
-  }
-  return series;
+  return blockColumns(block as readonly (readonly unknown[])[]);
 }

@@ -20,6 +20,7 @@ import {
   seriesPortmanteau,
   seriesVolCheck,
 } from "../functions/functions";
+import { cellReader, csvParseOptions, detectDialect } from "../src/core";
 import { columnLetters, echolotFormula, SCREENING_CAUTION } from "../src/report";
 
 type Cell = string | number;
@@ -53,15 +54,17 @@ export interface LiveFormula {
   readonly column: number;
 }
 
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-
+/** The CSV cells, read with the table reader's dialect and cell rules (numbers as numbers). */
 export function readDemoCsv(directory: string, file: string): Grid {
-  const records = parse(readFileSync(join(directory, file), "utf8"), {
-    bom: true,
-    skip_empty_lines: true,
-  }) as string[][];
+  const text = readFileSync(join(directory, file), "utf8");
+  const dialect = detectDialect(text, true);
+  const reader = cellReader({ decimal: dialect.decimal });
+  const records = parse(text, csvParseOptions(dialect)) as string[][];
   return records.map((row, r) =>
-    row.map((cell) => (r > 0 && NUMBER.test(cell) ? Number(cell) : cell)),
+    row.map((cell) => {
+      const value = r > 0 ? reader.read(cell) : undefined;
+      return value !== undefined && Number.isFinite(value) ? value : cell;
+    }),
   );
 }
 
@@ -235,7 +238,7 @@ export function buildDemoWorkbook(directory: string): ExcelJS.Workbook {
     for (const live of layout.live) {
       const result = computeResult(layout.sheet.data, live);
       const rows = result.length;
-      const columns = Math.max(...result.map((row) => row.length));
+      const columns = result.reduce((w, row) => Math.max(w, row.length), 0);
       const ref = `${columnLetters(live.column)}${live.row + 1}:${columnLetters(live.column + columns - 1)}${live.row + rows}`;
       result.forEach((row, i) =>
         row.forEach((value, j) => {

@@ -1,37 +1,43 @@
 /**
- * `echolot report FILE.csv [check options] --out report.html`: the pane's view of one column as a
- * self-contained HTML file — verdict badge, evidence chart (correlation, partial, squared
- * deviations), joint-test ribbon, explanation and figures; no script, nothing loaded from
- * anywhere.
+ * `echolot report FILE [check options] --out report.html [--force]`: the pane's view of one
+ * column as a self-contained HTML file — verdict badge, evidence chart (correlation, partial,
+ * squared deviations), joint-test ribbon, explanation and figures; no script, nothing loaded from
+ * anywhere. The file is written safely (output.ts): never over the input, never over an existing
+ * file without --force, never half-written.
  */
-import { writeFileSync } from "node:fs";
 import { BADGES, seriesReport, seriesReportHtml } from "../report";
-import { columnSeries, pickColumn, readCsv } from "./csv";
+import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { lagOptionsFrom, parseCommand } from "./options";
+import { readOneSeries } from "./input";
+import {
+  LAG_OPTIONS,
+  lagOptionsFrom,
+  READ_OPTIONS,
+  textOption,
+  type ParsedCommand,
+} from "./options";
+import { writeOutFile } from "./output";
 
-export function runReport(argv: readonly string[]): string {
-  const { file, values } = parseCommand(argv);
+export const REPORT_OPTIONS = ["column", ...LAG_OPTIONS, ...READ_OPTIONS, "out", "force"];
+
+export async function runReport({ files, values }: ParsedCommand): Promise<string> {
+  const file = files[0];
   if (file === undefined) {
     throw new UsageError("report needs a CSV file: echolot report FILE.csv --out report.html");
   }
-  const out = values.out;
-  if (typeof out !== "string" || out.trim() === "") {
+  const out = textOption(values, "out");
+  if (out === undefined || out.trim() === "") {
     throw new UsageError("report needs --out FILE.html: where to write the report");
   }
-  if (values.json === true)
-    throw new UsageError("--json does not apply to report; use check --json");
   const options = lagOptionsFrom(values);
-  const table = readCsv(file);
-  const column = pickColumn(table, typeof values.column === "string" ? values.column : undefined);
-  const report = seriesReport(columnSeries(table, column), options);
-  const html = seriesReportHtml(report, `${file}, column ${column + 1}`);
-  try {
-    writeFileSync(out, html, "utf8");
-  } catch {
-    throw new UsageError(`cannot write ${out}: check that its folder exists and is writable`);
-  }
+  const { series, source, column } = await readOneSeries(
+    readingFrom(file, values),
+    textOption(values, "column"),
+  );
+  const report = seriesReport(series, options);
+  const html = seriesReportHtml(report, `${file}, column ${column.index + 1}`);
+  writeOutFile(out, html, values.force === true, [file]);
   const badge = BADGES[report.table.verdict.word];
   const name = report.table.label === "" ? "the series" : report.table.label;
-  return `wrote ${out}: ${name}, ${badge.shape} ${badge.word}`;
+  return `read: ${source}\nwrote ${out}: ${name}, ${badge.shape} ${badge.word}`;
 }

@@ -11,7 +11,7 @@ import { figureCell, numberCell, pCell } from "./tableCells";
 
 export function auditText(batch: AuditBatch, horizon: number, season: number | null): string {
   const { alpha } = batch;
-  const width = Math.max(6, ...batch.items.map((item) => item.label.length));
+  const width = batch.items.reduce((w, item) => Math.max(w, item.label.length), 6);
   const first = batch.items
     .map((item) => item.audit)
     .find((audit): audit is ForecastAudit => audit !== null);

@@ -89,7 +89,7 @@ describe("echolot check FILE --json", () => {
       expect(typeof row.beyond).toBe("boolean");
       expect(row.beyond).toBe(Math.abs(row.corr) > row.band);
     }
-    expect(Object.keys(doc.joint).sort()).toEqual(["df", "p", "q", "test"]);
+    expect(Object.keys(doc.joint).sort()).toEqual(["df", "p", "pBound", "q", "reference", "test"]);
     expect(Object.keys(doc.falseAlarm)).toEqual(
       expect.arrayContaining(["tested", "expected", "beyond", "chance"]),
     );
