@@ -30,7 +30,7 @@ import {
   type LagTable,
   type Series,
 } from "../src/core";
-import { optionalKeyword, optionalNumber, readSeries } from "./arguments";
+import { optionalKeyword, optionalNumber, optionalSeason, readSeries } from "./arguments";
 import { lagTableHeader, lagTableValues } from "../src/report/lagTableHeader";
 import { cellFunction } from "./cellFunction";
 import { column, numberCell, row, type Cell } from "./shape";
@@ -95,7 +95,7 @@ export function seriesBand(
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
  * @param [bandKind] "noise" (default), "bartlett" or "robust": the standard error behind z.
- * @param [season] Periods in one cycle, a whole number from 2 (12 for monthly data); sets the default maxLag.
+ * @param [season] Periods in one cycle, a whole number from 2 (12 for monthly data); sets the default maxLag. 0 or omitted: none.
  * @returns Header, then per lag: lag, autocorrelation, partial, z, p of this lag, p corrected for all lags (Šidák), Ljung–Box p of lags 1 to this one.
  */
 export function seriesLagTable(
@@ -149,7 +149,7 @@ export function seriesPortmanteau(
  * @customfunction SERIESNOISECHECK
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Lags tested, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
- * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched.
+ * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
  * @param [fittedParams] ARMA parameters fitted to get these residuals, from 0 (default).
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
  * @returns One row: verdict word, reason sentence.
@@ -184,7 +184,7 @@ function lagOptions(args: CellArguments): LagOptions {
   return {
     maxLag: optionalNumber("maxLag", args.maxLag),
     alpha: optionalNumber("alpha", args.alpha),
-    season: optionalNumber("season", args.season),
+    season: optionalSeason(args.season),
     fittedParams: optionalNumber("fittedParams", args.fittedParams),
     bandKind: parseBandKind(optionalKeyword(args.bandKind)),
   };
@@ -228,7 +228,7 @@ export function seriesBiasCheck(series: any[][], hacLags?: number): any[][] {
  * @customfunction SERIESFORECASTAUDIT
  * @param errors One row or column of forecast errors; blanks and #N/A are gaps, a text first cell is the label.
  * @param [horizon] Periods ahead the forecasts were made, a whole number from 1 (lags below it are expected and not counted). Default: 1.
- * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched.
+ * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
  * @returns Rows of name and value: bias mean, standard error, t, p; dependence lags, Q, df, p; verdict and reason.
  */
@@ -241,7 +241,7 @@ export function seriesForecastAudit(
   return cellFunction(() => {
     const audit = forecastAudit(readSeries(errors, "errors"), {
       horizon: optionalNumber("horizon", horizon) ?? 1,
-      season: optionalNumber("season", season),
+      season: optionalSeason(season),
       alpha: optionalNumber("alpha", alpha),
     });
     const { bias, dependenceTest: test } = audit;
@@ -265,7 +265,7 @@ export function seriesForecastAudit(
  * @customfunction SERIESBATCHCHECK
  * @param block A block with one series per column (at least 2); a text first row holds the labels; blanks and #N/A are gaps.
  * @param [maxLag] Lags tested, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
- * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched.
+ * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
  * @param [fittedParams] ARMA parameters fitted to get these residuals, from 0 (default).
  * @param [alpha] Significance level, for the verdicts and the false-discovery rate, between 0 and 1. Default: 0.05.
  * @returns Header, then per column: label, n, Q, df, p, q-value, verdict.
@@ -280,7 +280,7 @@ export function seriesBatchCheck(
   return cellFunction(() => {
     const batch = batchCheck(readBlock(block), {
       maxLag: optionalNumber("maxLag", maxLag),
-      season: optionalNumber("season", season),
+      season: optionalSeason(season),
       fittedParams: optionalNumber("fittedParams", fittedParams),
       alpha: optionalNumber("alpha", alpha),
     });

@@ -120,7 +120,7 @@ describe("the built pane in a workbook (simulated host)", () => {
       .toContain("Live report placed on the new sheet “Echolot yield”");
     const live = await sheet("Echolot yield");
     expect(live.formulas["4,1"]).toBe(
-      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,,0,0.05)",
+      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,0,0,0.05)",
     );
     expect(live.formulas["6,1"]).toBe(
       "=ECHOLOT.SERIESPORTMANTEAU('Forecast errors'!$A$1:$A$71,10,0,\"ljung-box\")",
