@@ -84,10 +84,17 @@ export function messageOf(error: unknown): string {
     return error.message.charAt(0).toUpperCase() + error.message.slice(1);
   }
   const code = requestErrorCode(error);
-  const said = error instanceof Error ? error.message : String(error);
+  const said = (error instanceof Error ? error.message : String(error)).replace(/\.$/, "");
   const advice = code === undefined ? undefined : REQUEST_ADVICE[code];
   if (advice !== undefined) return `The workbook refused the request (${code}): ${advice}.`;
   return `The workbook refused the request${code === undefined ? "" : ` (${code})`}: ${said}. Nothing was changed; try again, and reopen the pane if it keeps failing.`;
+}
+
+/** `Office.addin.onVisibilityModeChanged`: "Taskpane" or "Hidden" (Office.VisibilityMode). */
+export interface VisibilityEvents {
+  onVisibilityModeChanged(
+    handler: (message: { readonly visibilityMode: string }) => void,
+  ): Promise<() => Promise<void>>;
 }
 
 /** What the pane needs from office.js: `Excel.run`, requirement-set checks, `Office.addin`. */
@@ -95,7 +102,7 @@ export interface HostEnvironment {
   readonly run: ExcelRun;
   readonly support: ApiSupport;
   /** `Office.addin` (shared runtime), or undefined where the host has none. */
-  readonly addin: Pick<Office.Addin, "onVisibilityModeChanged"> | undefined;
+  readonly addin: VisibilityEvents | undefined;
 }
 
 export function officeEnvironment(): HostEnvironment {
@@ -226,7 +233,7 @@ export async function startHost(
  * ECHOLOT formulas opens: the page is then not visible, and the session waits for the pane to be
  * shown. Cell functions never wait on any of this: they run in their own calls.
  */
-async function listenWhileVisible(
+export async function listenWhileVisible(
   session: HostSession,
   addin: HostEnvironment["addin"],
   onError: (error: unknown) => void,
