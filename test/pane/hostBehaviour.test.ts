@@ -9,25 +9,11 @@ import { lagTable } from "../../src/core";
 import { liveReportPlan, snapshotReportPlan, uniqueSheetName } from "../../src/report";
 import { listenWhileVisible, messageOf, seriesOfReading } from "../../taskpane/host/hostMode";
 import { placeReport } from "../../taskpane/host/placeReport";
-import { readSelectedRange, type RangeRead } from "../../taskpane/host/readRange";
+import { readSelectedRange } from "../../taskpane/host/readRange";
 import { HostSession } from "../../taskpane/host/session";
 import { errorValue, FakeExcel, sheetNameProblem } from "./fakeExcel";
+import { recorder } from "./recorder";
 import { seriesFColumn } from "./seriesF";
-
-function recorder() {
-  const reads: RangeRead[] = [];
-  const errors: unknown[] = [];
-  return {
-    reads,
-    errors,
-    listener: {
-      onRead: (read: RangeRead) => reads.push(read),
-      onProgress: () => {},
-      onError: (error: unknown) => errors.push(error),
-      onPinChange: () => {},
-    },
-  };
-}
 
 /** Series F in B1:B71 of "Forecast errors", selected. */
 async function seriesFWorkbook(): Promise<FakeExcel> {
