@@ -317,7 +317,7 @@ export function seriesCrossCorr(x: any[][], y: any[][], maxLag?: number): any[][
  * @param window Rows per window, a whole number from 3 to the length of the series.
  * @param [lags] Lags tested in each window, a whole number from 1 to window − 1. Default: min(10, window/5).
  * @param [step] Report every step rows, a whole number from 1. Default: 1.
- * @returns Aligned with the input, row for row: the joint-test p of the window ending there; empty before the first full window.
+ * @returns Aligned with the input, row for row down to its last value: the joint-test p of the window ending there; empty before the first full window.
  */
 export function seriesRollCheck(
   series: any[][],
@@ -332,7 +332,12 @@ export function seriesRollCheck(
       lags: optionalNumber("lags", lags),
       step: optionalNumber("step", step),
     });
-    const placed = placeOnCells(result.p, parsed);
+    // Row for row with the input, ending at its last value: a whole-column reference must not
+    // spill a million rows (it would meet #SPILL! anywhere below row 1).
+    const placed = placeOnCells(result.p, parsed).subarray(
+      0,
+      (parsed.start ?? 0) + parsed.values.length,
+    );
     const isRow = series.length === 1 && (series[0]?.length ?? 0) > 1;
     return isRow ? [Array.from(placed, numberCell)] : column(placed);
   });
