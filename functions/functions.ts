@@ -390,3 +390,30 @@ function readBlock(block: unknown): Series[] {
   }
   return series;
 }
+
+/**
+ * Every function by its id, on the page's global scope for the task pane: the pane runs in the
+ * same page (the shared runtime) and, when a selected cell shows an error, recomputes the
+ * function's message from the same arguments, since some hosts hide custom error messages.
+ * A global rather than an import: importing this file into the pane's bundle would register every
+ * function a second time.
+ */
+Object.assign(globalThis, {
+  echolotCellFunctions: {
+    SERIESLAGCOV: seriesLagCov,
+    SERIESLAGCORR: seriesLagCorr,
+    SERIESPARTIALCORR: seriesPartialCorr,
+    SERIESBAND: seriesBand,
+    SERIESLAGTABLE: seriesLagTable,
+    SERIESPORTMANTEAU: seriesPortmanteau,
+    SERIESNOISECHECK: seriesNoiseCheck,
+    SERIESVOLCHECK: seriesVolCheck,
+    SERIESBIASCHECK: seriesBiasCheck,
+    SERIESFORECASTAUDIT: seriesForecastAudit,
+    SERIESBATCHCHECK: seriesBatchCheck,
+    SERIESCROSSCORR: seriesCrossCorr,
+    SERIESROLLCHECK: seriesRollCheck,
+    SERIESRUNSCHECK: seriesRunsCheck,
+    SERIESNORMALCHECK: seriesNormalCheck,
+  },
+});

@@ -17,8 +17,10 @@ import {
   type ExcelRun,
 } from "./excel";
 import { placeReport } from "./placeReport";
-import type { RangeRead } from "./readRange";
+import type { ErrorCell, RangeRead } from "./readRange";
 import { HostSession } from "./session";
+import { isEcholotFormula } from "./cellFormula";
+import { explainFailedCell } from "./whyFailed";
 
 function byId<T extends HTMLElement>(id: string): T {
   const found = document.getElementById(id);
@@ -139,6 +141,11 @@ export async function startHost(
         );
         return;
       }
+      explaining++;
+      if (isEcholotFormula(read.formula)) {
+        explainCell(read, read.formula);
+        return;
+      }
       const pinned = session.pinnedAddress;
       sourceLine.textContent =
         pinned === null
@@ -178,6 +185,35 @@ export async function startHost(
           : `Pinned: ${pinned}. Changes to it recompute the pane.`;
     },
   });
+
+  // The latest cell being explained: an older explanation never replaces a newer reading.
+  let explaining = 0;
+  const explainCell = (read: RangeRead, formula: string) => {
+    const ticket = ++explaining;
+    sourceLine.textContent = `Selected: ${read.address}`;
+    const shown = read.cells[0]?.[0];
+    const isError = typeof shown === "object" && shown !== null && "code" in shown;
+    if (!isError) {
+      pane.showDataProblem(
+        `Cell ${read.address} holds an ECHOLOT formula (${formula}); select the data it reads to see its analysis here.`,
+      );
+      return;
+    }
+    pane.showDataProblem(
+      `Cell ${read.address} shows ${(shown as ErrorCell).code}; finding out why…`,
+    );
+    explainFailedCell(run, read.address, formula, shown as ErrorCell)
+      .then((why) => {
+        if (ticket !== explaining) return;
+        pane.showDataProblem(
+          why ??
+            `Cell ${read.address} shows ${(shown as ErrorCell).code}; its formula is more than one ECHOLOT call with plain arguments, so the pane cannot recompute it.`,
+        );
+      })
+      .catch((error: unknown) => {
+        if (ticket === explaining) pane.showDataProblem(messageOf(error));
+      });
+  };
 
   pinToggle.addEventListener("click", () => {
     const action = session.pinnedAddress === null ? session.pin() : session.unpin();

@@ -38,6 +38,8 @@ export interface RangeRead {
   readonly cells: unknown[][];
   /** Whether the range is larger than a cell function's payload can carry. */
   readonly tooLargeForFunctions: boolean;
+  /** For a single cell: its formula as `Range.formulas` gives it (its value when it has none). */
+  readonly formula?: unknown;
 }
 
 /** An error cell as the intake takes it (the shape the cell functions receive, too). */
@@ -127,13 +129,17 @@ async function readRange(
   }
   const chunk = Math.max(1, Math.floor((options.chunkRows ?? CHUNK_ROWS) / Math.max(1, columns)));
   const cells: unknown[][] = [];
+  const single = rows === 1 && columns === 1;
+  let formula: unknown;
   for (let start = 0; start < rows; start += chunk) {
     const count = Math.min(chunk, rows - start);
     const part = used.getCell(start, 0).getResizedRange(count - 1, columns - 1);
-    part.load(["values", "valueTypes"]);
+    // A single cell may be a formula whose error the pane explains: its formula is read too.
+    part.load(single ? ["values", "valueTypes", "formulas"] : ["values", "valueTypes"]);
     await context.sync();
     const types = part.valueTypes;
     part.values.forEach((row, i) => cells.push(withErrorCells(row, types[i] ?? [])));
+    if (single) formula = part.formulas[0]?.[0];
     options.onProgress?.(start + count, rows);
   }
   return {
@@ -143,11 +149,12 @@ async function readRange(
     columns,
     cells,
     tooLargeForFunctions: rows * columns > FUNCTION_PAYLOAD_CELLS,
+    ...(single ? { formula } : {}),
   };
 }
 
 /** A row of `values` with each error cell (value type "Error") as an error value. */
-function withErrorCells(row: unknown[], types: readonly string[]): unknown[] {
+export function withErrorCells(row: unknown[], types: readonly string[]): unknown[] {
   if (!types.includes("Error")) return row;
   return row.map((cell, j): unknown =>
     types[j] === "Error" ? ({ code: String(cell) } satisfies ErrorCell) : cell,

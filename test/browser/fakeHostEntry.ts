@@ -12,6 +12,7 @@ declare global {
   interface Window {
     echolotSeriesF: (string | number)[];
     echolotHost: FakeExcel;
+    echolotErrorValue: typeof errorValue;
   }
 }
 
@@ -29,6 +30,7 @@ host.sheet("Forecast errors").fill(
 );
 host.selection = { sheet: "Forecast errors", range: "A1:A71" };
 window.echolotHost = host;
+window.echolotErrorValue = errorValue;
 
 const info = { host: "Excel", platform: "PC" };
 Object.assign(window, {
@@ -51,7 +53,15 @@ Object.assign(window, {
   },
   CustomFunctions: {
     associate: () => undefined,
-    Error: class extends Error {},
+    // As the runtime's CustomFunctions.Error: a code and a message.
+    Error: class extends Error {
+      constructor(
+        readonly code: string,
+        message?: string,
+      ) {
+        super(message ?? "");
+      }
+    },
     ErrorCode: { invalidValue: "#VALUE!", notAvailable: "#N/A" },
   },
 });

@@ -153,6 +153,22 @@ describe("the built pane in a workbook (simulated host)", () => {
     await expect.poll(() => page.textContent("#series-meta")).toContain("n = 70 · no gaps");
   });
 
+  it("explains a selected ECHOLOT cell that shows an error with the function's own message", async () => {
+    await page.evaluate(() => {
+      const formula = "=ECHOLOT.SERIESLAGCORR('Forecast errors'!$A$1:$A$71,80)";
+      const sheet = window.echolotHost.sheet("Forecast errors");
+      sheet.setFormula("G2", formula, window.echolotErrorValue("#VALUE!"));
+      return window.echolotHost.select("Forecast errors", "G2");
+    });
+    await expect
+      .poll(() => page.textContent("#problem"))
+      .toBe(
+        "Cell 'Forecast errors'!G2 shows #VALUE!. ECHOLOT.SERIESLAGCORR, recomputed from the same arguments, gives #VALUE!: MaxLag must be a whole number from 1 to 69 (the series has 70 values).",
+      );
+    await page.evaluate(() => window.echolotHost.select("Forecast errors", "A1:A71"));
+    await expect.poll(() => page.textContent("#series-label")).toBe("yield");
+  });
+
   it("goes quiet while hidden, and reads the selection again when shown", async () => {
     await page.evaluate(() => window.echolotHost.setVisibility("Hidden"));
     await expect

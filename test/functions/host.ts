@@ -131,6 +131,8 @@ export interface LoadedAddIn {
   /** Functions in the order the bundle associated them. */
   readonly registered: readonly string[];
   readonly metadata: FunctionsJson;
+  /** The bundle's registry of functions by id, as the pane finds it on the page's global scope. */
+  readonly byId: Readonly<Record<string, (...args: unknown[]) => unknown>>;
   /** Calls `id` with `args`, padding omitted trailing parameters with null. */
   invoke(id: string, ...args: unknown[]): Invocation;
 }
@@ -221,7 +223,9 @@ export function loadBuiltFunctions(errorShape: ErrorShape = "flags"): LoadedAddI
       return { error: new HostError(ErrorCode.invalidValue, undefined) };
     }
   }
-  return { registered, metadata, invoke };
+  const byId = (context as { echolotCellFunctions?: LoadedAddIn["byId"] }).echolotCellFunctions;
+  if (byId === undefined) throw new Error("functions.js put no echolotCellFunctions registry");
+  return { registered, metadata, invoke, byId };
 }
 
 /** The spilled value of an invocation, or a thrown description of the error it gave. */

@@ -96,3 +96,10 @@ describe("season 0 means no season, so formulas need no empty middle argument", 
     );
   });
 });
+
+describe("the registry the pane recomputes failed cells with", () => {
+  it("holds every function the bundle associates, under the same id", () => {
+    const addIn = loadBuiltFunctions();
+    expect(Object.keys(addIn.byId).sort()).toEqual([...addIn.registered].sort());
+  });
+});

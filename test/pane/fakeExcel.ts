@@ -101,23 +101,33 @@ function a1(area: Area): string {
   return from === to ? from : `${from}:${to}`;
 }
 
-function parseCell(text: string): { r: number; c: number } {
-  const m = /^\$?([A-Z]+)\$?(\d+)$/.exec(text.trim().toUpperCase());
-  if (m === null) throw new Error(`fake host: unsupported address "${text}"`);
+/** One corner of an A1 reference; a whole column ("B") or row ("5") leaves the other out. */
+function parseCell(text: string): { r: number | undefined; c: number | undefined } {
+  const m = /^(?:\$?([A-Z]{1,3}))?(?:\$?(\d+))?$/.exec(text.trim().toUpperCase());
+  if (m === null || (m[1] === undefined && m[2] === undefined)) {
+    throw new Error(`fake host: unsupported address "${text}"`);
+  }
   let c = 0;
-  for (const ch of m[1] as string) c = c * 26 + ch.charCodeAt(0) - 64;
-  return { r: Number(m[2]) - 1, c: c - 1 };
+  for (const ch of m[1] ?? "") c = c * 26 + ch.charCodeAt(0) - 64;
+  return {
+    r: m[2] === undefined ? undefined : Number(m[2]) - 1,
+    c: m[1] === undefined ? undefined : c - 1,
+  };
 }
+
+/** The sheet's last row and column (zero-based): 1,048,576 rows and 16,384 columns. */
+const LAST_ROW = 1_048_575;
+const LAST_COLUMN = 16_383;
 
 export function parseArea(address: string): Area {
   const [from, to = from] = address.split(":") as [string, string?];
   const a = parseCell(from);
   const b = parseCell(to);
   return {
-    r0: Math.min(a.r, b.r),
-    c0: Math.min(a.c, b.c),
-    r1: Math.max(a.r, b.r),
-    c1: Math.max(a.c, b.c),
+    r0: Math.min(a.r ?? 0, b.r ?? 0),
+    c0: Math.min(a.c ?? 0, b.c ?? 0),
+    r1: Math.max(a.r ?? LAST_ROW, b.r ?? LAST_ROW),
+    c1: Math.max(a.c ?? LAST_COLUMN, b.c ?? LAST_COLUMN),
   };
 }
 
@@ -488,6 +498,10 @@ export class FakeRange {
     switch (property) {
       case "address":
         return `${sheetPrefix(this.sheet.name)}!${a1(area)}`;
+      case "rowIndex":
+        return area.r0;
+      case "columnIndex":
+        return area.c0;
       case "rowCount":
         return area.r1 - area.r0 + 1;
       case "columnCount":
@@ -539,6 +553,12 @@ export class FakeRange {
   }
   get address(): string {
     return this.read("address") as string;
+  }
+  get rowIndex(): number {
+    return this.read("rowIndex") as number;
+  }
+  get columnIndex(): number {
+    return this.read("columnIndex") as number;
   }
   get rowCount(): number {
     return this.read("rowCount") as number;
