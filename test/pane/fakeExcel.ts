@@ -286,8 +286,12 @@ class FakeLegend {
   position = "";
 }
 
+class FakeAxisTitle {
+  text = "";
+}
+
 class FakeAxis {
-  readonly title = new FakeTitle();
+  readonly title = new FakeAxisTitle();
 }
 
 class FakeAxes {
@@ -351,6 +355,7 @@ const TYPE_NAMES = new Map<unknown, string>([
   [FakeSeriesFormat, "ChartSeriesFormat"],
   [FakeSeries, "ChartSeries"],
   [FakeTitle, "ChartTitle"],
+  [FakeAxisTitle, "ChartAxisTitle"],
   [FakeLegend, "ChartLegend"],
   [FakeAxis, "ChartAxis"],
   [FakeAxes, "ChartAxes"],
@@ -731,7 +736,11 @@ export class FakeWorksheetProxy {
     return {
       add: (type: string, source: FakeRange, seriesBy: string) => {
         used.add("ChartCollection.add");
-        const chart = new FakeChart(type, source.localAddress(), seriesBy);
+        const chart = new FakeChart(
+          type,
+          (untracked(source) as FakeRange).localAddress(),
+          seriesBy,
+        );
         this.context.pending.push(() => {
           chart.nameSeries(this.sheet);
           this.sheet.charts.push(chart);
