@@ -74,7 +74,9 @@ function printHowToLoad(certificates) {
   } else {
     lines.push(
       `Echolot is served at https://localhost:${PORT}/ (manifest: https://localhost:${PORT}/manifest.xml).`,
-      `The certificate is signed by a local development CA: ${certificates.caPath}`,
+      certificates.reused
+        ? `Reusing the development CA ${certificates.caPath}: still valid for ${certificates.daysLeft} days. If you trusted it before, nothing to do.`
+        : `Made a new development CA, valid for ${certificates.daysLeft} days: ${certificates.caPath}`,
       "Trust it once on the machine that runs the spreadsheet host, for example:",
       "  Debian/Ubuntu: cp <ca.crt> /usr/local/share/ca-certificates/office-addin-dev-ca.crt && update-ca-certificates",
       "  macOS:         security add-trusted-cert -d -r trustRoot -k ~/Library/Keychains/login.keychain-db <ca.crt>",
