@@ -19,6 +19,7 @@ const CopyWebpackPlugin = require("copy-webpack-plugin");
 const HtmlWebpackPlugin = require("html-webpack-plugin");
 const CustomFunctionsMetadataPlugin = require("custom-functions-metadata-plugin");
 const { AllowErrorCellsPlugin } = require("./scripts/allow-error-cells-plugin.cjs");
+const { HelpPagesPlugin } = require("./scripts/help-pages-plugin.cjs");
 const { devCertificates } = require("./scripts/dev-certs.cjs");
 const { contentPolicy, officeJsUrl } = require("./scripts/content-policy.cjs");
 
@@ -144,6 +145,7 @@ module.exports = async (env, argv) => {
         input: "./functions/functions.ts",
       }),
       new AllowErrorCellsPlugin({ file: "functions.json" }),
+      new HelpPagesPlugin({ metadata: "functions.json", help: "functions/help.json" }),
       new HtmlWebpackPlugin({
         filename: "taskpane.html",
         template: "./taskpane/taskpane.html",

@@ -38,6 +38,7 @@ import { column, numberCell, row, type Cell } from "./shape";
 /**
  * Autocovariance at lags 0 to maxLag (divide-by-n); spills a column, lag 0 (the variance) first.
  * @customfunction SERIESLAGCOV
+ * @helpurl https://localhost:3000/help/serieslagcov.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
  * @returns A column: autocovariance at lags 0, 1, …, maxLag.
@@ -49,6 +50,7 @@ export function seriesLagCov(series: any[][], maxLag?: number): any[][] {
 /**
  * Autocorrelation at lags 1 to maxLag; spills a column of maxLag numbers.
  * @customfunction SERIESLAGCORR
+ * @helpurl https://localhost:3000/help/serieslagcorr.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
  * @returns A column: autocorrelation at lags 1, 2, …, maxLag.
@@ -60,6 +62,7 @@ export function seriesLagCorr(series: any[][], maxLag?: number): any[][] {
 /**
  * Partial autocorrelation at lags 1 to maxLag (Durbin–Levinson); spills a column.
  * @customfunction SERIESPARTIALCORR
+ * @helpurl https://localhost:3000/help/seriespartialcorr.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
  * @returns A column: partial autocorrelation at lags 1, 2, …, maxLag.
@@ -71,6 +74,7 @@ export function seriesPartialCorr(series: any[][], maxLag?: number): any[][] {
 /**
  * Significance band half-width for the autocorrelation at lags 1 to maxLag; spills a column.
  * @customfunction SERIESBAND
+ * @helpurl https://localhost:3000/help/seriesband.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5).
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
@@ -91,6 +95,7 @@ export function seriesBand(
 /**
  * Lag table: autocorrelation, partial, z and three p-values per lag; spills a header and one row per lag.
  * @customfunction SERIESLAGTABLE
+ * @helpurl https://localhost:3000/help/serieslagtable.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
@@ -116,6 +121,7 @@ export function seriesLagTable(
 /**
  * Joint (portmanteau) test that the autocorrelations at lags 1 to lags are all zero; spills Q, df, p.
  * @customfunction SERIESPORTMANTEAU
+ * @helpurl https://localhost:3000/help/seriesportmanteau.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [lags] Number of lags tested, a whole number from 1 to n − 1. Default: min(10, n/5).
  * @param [fittedParams] ARMA parameters fitted to get these residuals, from 0 (default); df = lags − fittedParams.
@@ -147,6 +153,7 @@ export function seriesPortmanteau(
 /**
  * Is the series white noise? Spills a verdict (clear, watch, structure, short) and its reason; a screen, not a decision.
  * @customfunction SERIESNOISECHECK
+ * @helpurl https://localhost:3000/help/seriesnoisecheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [maxLag] Lags tested, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
  * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
@@ -198,6 +205,7 @@ function analyse(series: unknown, args: CellArguments): LagTable {
 /**
  * Volatility clustering: Engle's LM test that the squared deviations depend on their last lags; spills LM, df, p.
  * @customfunction SERIESVOLCHECK
+ * @helpurl https://localhost:3000/help/seriesvolcheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [lags] Lagged squares in the regression, a whole number from 1 to n − 1. Default: min(10, n/5).
  * @returns One row: LM statistic (rows used × R²), degrees of freedom, p-value.
@@ -212,6 +220,7 @@ export function seriesVolCheck(series: any[][], lags?: number): any[][] {
 /**
  * Bias: is the mean zero? Mean with a Newey–West (HAC) standard error; spills mean, se, t, p.
  * @customfunction SERIESBIASCHECK
+ * @helpurl https://localhost:3000/help/seriesbiascheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [hacLags] Lags the standard error allows for, a whole number from 0 to n − 1. Default: 4(n/100)^(2/9), rounded down.
  * @returns One row: mean, HAC standard error, t statistic, two-sided p-value.
@@ -226,6 +235,7 @@ export function seriesBiasCheck(series: any[][], hacLags?: number): any[][] {
 /**
  * Forecast audit of h-step-ahead errors: bias, dependence beyond lag horizon − 1, verdict; spills a two-column table.
  * @customfunction SERIESFORECASTAUDIT
+ * @helpurl https://localhost:3000/help/seriesforecastaudit.html
  * @param errors One row or column of forecast errors; blanks and #N/A are gaps, a text first cell is the label.
  * @param [horizon] Periods ahead the forecasts were made, a whole number from 1 (lags below it are expected and not counted). Default: 1.
  * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
@@ -263,6 +273,7 @@ export function seriesForecastAudit(
 /**
  * Noise check of every column of a block, with Benjamini–Hochberg q-values across them; spills a header and one row per column.
  * @customfunction SERIESBATCHCHECK
+ * @helpurl https://localhost:3000/help/seriesbatchcheck.html
  * @param block A block with one series per column (at least 2); a text first row holds the labels; blanks and #N/A are gaps.
  * @param [maxLag] Lags tested, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
  * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
@@ -295,6 +306,7 @@ export function seriesBatchCheck(
 /**
  * Cross-correlation of two aligned series at lags −maxLag to maxLag, with the noise band; spills a header and 2·maxLag + 1 rows.
  * @customfunction SERIESCROSSCORR
+ * @helpurl https://localhost:3000/help/seriescrosscorr.html
  * @param x One row or column of numbers; blanks and #N/A are gaps (of the pair), a text first cell is the label.
  * @param y A range of the same size as x, row by row the same periods.
  * @param [maxLag] Highest lag each way, a whole number from 1 to n − 1. Default: min(10, n/5).
@@ -313,6 +325,7 @@ export function seriesCrossCorr(x: any[][], y: any[][], maxLag?: number): any[][
 /**
  * Rolling check: Ljung–Box p of the window ending at each row, so a change shows where it starts; spills beside the input.
  * @customfunction SERIESROLLCHECK
+ * @helpurl https://localhost:3000/help/seriesrollcheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param window Rows per window, a whole number from 3 to the length of the series.
  * @param [lags] Lags tested in each window, a whole number from 1 to window − 1. Default: min(10, window/5).
@@ -346,6 +359,7 @@ export function seriesRollCheck(
 /**
  * Runs about the median (Wald–Wolfowitz): too few runs means drift, too many alternation; spills runs, expected runs, p.
  * @customfunction SERIESRUNSCHECK
+ * @helpurl https://localhost:3000/help/seriesrunscheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @returns One row: runs, expected runs, two-sided p-value.
  */
@@ -359,6 +373,7 @@ export function seriesRunsCheck(series: any[][]): any[][] {
 /**
  * Normality by Jarque–Bera (skewness and kurtosis); spills the statistic and p.
  * @customfunction SERIESNORMALCHECK
+ * @helpurl https://localhost:3000/help/seriesnormalcheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @returns One row: Jarque–Bera statistic, p-value.
  */
