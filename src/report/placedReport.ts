@@ -115,7 +115,9 @@ export function uniqueSheetName(label: string, existing: readonly string[]): str
   const taken = new Set(existing.map((name) => name.toLowerCase()));
   for (let i = 1; ; i++) {
     const suffix = i === 1 ? "" : ` (${i})`;
-    const name = `${base.slice(0, SHEET_NAME_LIMIT - suffix.length).trimEnd()}${suffix}`;
+    // Cut to the length limit; a name may not end with an apostrophe either.
+    const cut = base.slice(0, SHEET_NAME_LIMIT - suffix.length).replace(/[\s']+$/, "");
+    const name = `${cut}${suffix}`;
     if (!taken.has(name.toLowerCase())) return name;
   }
 }
@@ -145,7 +147,13 @@ export function liveReportFormulas(table: LagTable, source: ReportSource): LiveF
   const series = source.reference;
   const { maxLag, alpha, season, fittedParams, bandKind, testKind } = table;
   return {
-    noiseCheck: echolotFormula("SERIESNOISECHECK", series, [maxLag, season, fittedParams, alpha]),
+    // Season 0 means none: the formula never relies on an empty argument between commas.
+    noiseCheck: echolotFormula("SERIESNOISECHECK", series, [
+      maxLag,
+      season ?? 0,
+      fittedParams,
+      alpha,
+    ]),
     lagTable: echolotFormula("SERIESLAGTABLE", series, [maxLag, alpha, bandKind, season]),
     portmanteau: echolotFormula("SERIESPORTMANTEAU", series, [maxLag, fittedParams, testKind]),
   };

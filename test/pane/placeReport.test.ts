@@ -32,7 +32,7 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
     expect(placed.sheetName).toBe("Echolot yield");
     const sheet = host.sheet("Echolot yield");
     expect(sheet.get(4, 1).formula).toBe(
-      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,,0,0.05)",
+      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,0,0,0.05)",
     );
     expect(sheet.get(6, 1).formula).toBe(
       "=ECHOLOT.SERIESPORTMANTEAU('Forecast errors'!$A$1:$A$71,10,0,\"ljung-box\")",
@@ -55,7 +55,9 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
       expect(f.replace(/'Forecast errors'!\$A\$1:\$A\$71/g, "")).not.toMatch(/!/);
     }
     expect(host.writes.every((w) => w.sheet === "Echolot yield" && !w.overwrote)).toBe(true);
-    expect(host.activeSheet).toBe("Echolot yield");
+    // The report sheet is not activated, so the selection (and the pane) stays on the source.
+    expect(host.activeSheet).toBe("Forecast errors");
+    expect(host.selection).toEqual({ sheet: "Forecast errors", range: "A1:A71" });
   });
 
   it("adds a native chart bound to the table: corridors as stacked areas, diamonds in our palette", async () => {
