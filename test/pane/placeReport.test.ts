@@ -124,7 +124,7 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
         x: "A10:A19",
         type: "LineMarkers",
         marker: "Diamond",
-        colour: "#E69F00",
+        colour: "#8A5F00",
       },
       {
         name: "beyond all-lags corridor",

@@ -1,8 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { lagTable, seriesFromNumbers, type LagTable } from "../../src/core";
+import { formatP, lagTable, seriesFromNumbers, type LagTable } from "../../src/core";
 import { ar1, movingAverage, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
-import { evidenceChartSvg, PALETTE, PIN_LIMIT, ZONE_COLOURS } from "../../src/report";
+import {
+  evidenceChartSvg,
+  jointRibbonSvg,
+  PALETTE,
+  PIN_LIMIT,
+  ZONE_COLOURS,
+} from "../../src/report";
 import { expectClose } from "../helpers/expectClose";
 import { corridors, diamonds, elements, seriesF, withClass } from "./chartTree";
 
@@ -95,7 +101,8 @@ describe("evidenceChartSvg(table)", () => {
       }
     }
     expect([...seen].sort()).toEqual(["between", "beyond", "inside"]);
-    expect(ZONE_COLOURS).toEqual({ inside: "#56636F", between: "#E69F00", beyond: "#D55E00" });
+    // Okabe–Ito slate and vermillion; the orange darkened to 60% for 3:1 contrast (palette.ts).
+    expect(ZONE_COLOURS).toEqual({ inside: "#56636F", between: "#8A5F00", beyond: "#D55E00" });
   });
 
   it("shows a vermillion diamond exactly when the verdict's single-lag rule fires, at those lags", () => {
@@ -189,8 +196,20 @@ describe("evidenceChartSvg(table)", () => {
     expect(lines.every((e) => e.attributes.class === "tick")).toBe(true);
     const rects = elements(svg).filter((e) => e.local === "rect");
     expect(
-      rects.every((e) => /^(corridor (inner|outer)|season)$/.test(e.attributes.class ?? "")),
+      rects.every((e) =>
+        /^(corridor (inner|outer)|corridor-edge (inner|outer)|season)$/.test(
+          e.attributes.class ?? "",
+        ),
+      ),
     ).toBe(true);
+    // The corridors' edges are solid outlines of the same rectangles, not lines of their own.
+    const edges = withClass(svg, "corridor-edge");
+    expect(edges.map((e) => [e.attributes.fill, e.attributes.stroke])).toEqual([
+      ["none", PALETTE.outerEdge],
+      ["none", PALETTE.innerEdge],
+    ]);
+    const fills = withClass(svg, "corridor");
+    expect(edges.map((e) => e.attributes.y)).toEqual(fills.map((e) => e.attributes.y));
   });
 
   it("escapes every text: a label <img src=x onerror=alert(1)> stays text", () => {
@@ -262,5 +281,67 @@ describe("evidenceChartSvg(table)", () => {
     expect(desc).toContain("Lags between the corridors: 2.");
     expect(desc).toContain("±1.96");
     expect(desc).toContain("±3.07");
+  });
+
+  it("names its values, band kind and joint test in a two-line caption, for every tab", () => {
+    const series = seriesF();
+    const robust = lagTable(series, { maxLag: 12, bandKind: "robust", testKind: "robust" });
+    const captions = (svg: string) => withClass(svg, "caption").map((e) => e.text);
+    expect(captions(evidenceChartSvg(robust))).toEqual([
+      "Autocorrelation, robust bands (volatility-robust se)",
+      `Joint test robust Q*, lags 1–12: p = ${formatP(robust.joint.p)}`,
+    ]);
+    expect(captions(evidenceChartSvg(robust, { view: "partial" }))[0]).toBe(
+      "Partial autocorrelation, partial bands (se 1/√n)",
+    );
+    const squares = lagTable(series, { maxLag: 12, testKind: "squares" });
+    expect(captions(evidenceChartSvg(squares))).toEqual([
+      "Squared deviations, noise bands (se 1/√n)",
+      `Joint test McLeod–Li, lags 1–12: p = ${formatP(squares.joint.p)}`,
+    ]);
+    const fitted = lagTable(series, { maxLag: 12, bandKind: "bartlett", fittedParams: 2 });
+    expect(captions(evidenceChartSvg(fitted))).toEqual([
+      "Autocorrelation, Bartlett bands",
+      `Joint test Ljung–Box, lags 1–12, df 10: p = ${formatP(fitted.joint.p)}`,
+    ]);
+  });
+
+  it("keeps one y scale on every tab, ±6 (or just past a wider outer corridor), and says so", () => {
+    const series = seriesFromNumbers(ar1(seededRandom(5), 200, 0.5));
+    const table = lagTable(series, { maxLag: 10 });
+    const squares = lagTable(series, { maxLag: 10, testKind: "squares" });
+    const charts = [
+      evidenceChartSvg(table),
+      evidenceChartSvg(table, { view: "partial" }),
+      evidenceChartSvg(squares),
+    ];
+    const scales = charts.map((svg) => yScale(svg));
+    for (const s of scales) {
+      expectClose(s.zero, scales[0]?.zero ?? NaN, { abs: 0.1 }, "z = 0 row (px) across tabs");
+      expectClose(s.perUnit, scales[0]?.perUnit ?? NaN, { rel: 1e-3 }, "px per z across tabs");
+    }
+    for (const svg of charts) {
+      expect(elements(svg)[0]?.attributes["data-z-limit"]).toBe(String(PIN_LIMIT));
+      expect(withClass(svg, "scale-rule")[0]?.text).toBe(
+        "same z scale ±6 on every tab; beyond it, pinned ▲▼",
+      );
+    }
+    // alpha 1e-9 over 10 lags puts the outer corridor at about ±6.4 (normal quantile of
+    // 1 − 5e-11, from memory): the scale then runs to 1.1 times it, so the corridor still shows.
+    const tiny = lagTable(series, { maxLag: 10, alpha: 1e-9 });
+    expect(tiny.outerLevel).toBeGreaterThan(PIN_LIMIT);
+    const limit = Number(elements(evidenceChartSvg(tiny))[0]?.attributes["data-z-limit"]);
+    expectClose(limit, 1.1 * tiny.outerLevel, { rel: 1e-9 }, "z limit past a wide corridor");
+  });
+
+  it("writes every text at 11 px or larger (chart and ribbon)", () => {
+    const table = lagTable(seriesF(), { maxLag: 24, season: 6 });
+    for (const svg of [evidenceChartSvg(table), jointRibbonSvg(table)]) {
+      const texts = elements(svg).filter((e) => e.local === "text");
+      expect(texts.length).toBeGreaterThan(3);
+      for (const t of texts) {
+        expect(Number(t.attributes["font-size"]), `"${t.text}"`).toBeGreaterThanOrEqual(11);
+      }
+    }
   });
 });
