@@ -96,7 +96,7 @@ export function seriesBand(
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
  * @param [bandKind] "noise" (default), "bartlett" or "robust": the standard error behind z.
  * @param [season] Periods in one cycle, a whole number from 2 (12 for monthly data); sets the default maxLag.
- * @returns Header, then per lag: lag, autocorrelation, partial, z, p of this lag, p corrected for all lags (Šidák), Ljung–Box p of lags 1 to this one.
+ * @returns Header, then per lag: lag, autocorrelation, partial, z, corridor (inside, between or beyond), p of this lag, p for all lags together (Šidák).
  */
 export function seriesLagTable(
   series: any[][],

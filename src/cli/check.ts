@@ -14,7 +14,7 @@ import {
   type LagTable,
   type Series,
 } from "../core";
-import { lagTableText } from "../report";
+import { jointSpanText, lagTableText } from "../report";
 import { sideChecksText, type SideChecks } from "../report/sideChecksText";
 import { columnSeries, pickColumn, readCsv } from "./csv";
 import { UsageError } from "./errors";
@@ -32,7 +32,7 @@ export function runCheck(argv: readonly string[]): string {
   const side = sideChecks(series, result);
   return values.json === true
     ? toJsonText({ ...lagTableJson(result), ...sideChecksJson(side) })
-    : `${lagTableText(result)}\n\n${sideChecksText(side)}`;
+    : `${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
 }
 
 function sideChecks(series: Series, table: LagTable): SideChecks {

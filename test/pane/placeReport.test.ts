@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { lagTable, seriesFromCells, type LagTable } from "../../src/core";
-import { PALETTE, liveReportPlan, snapshotReportPlan } from "../../src/report";
+import { PALETTE, ZONE_SHORT, liveReportPlan, rowZone, snapshotReportPlan } from "../../src/report";
 import { absoluteReference } from "../../taskpane/host/address";
 import { literalText, placeReport } from "../../taskpane/host/placeReport";
 import { readSelectedRange } from "../../taskpane/host/readRange";
@@ -189,9 +189,9 @@ describe("placeReport(run, snapshotReportPlan(table))", () => {
         r?.correlation,
         r?.partial,
         r?.z,
+        r === undefined ? "" : ZONE_SHORT[rowZone(r)],
         r?.pLag,
         r?.pSidak,
-        r?.jointP,
       ]);
     });
     // One diamond column per zone holds each lag's z; the other two are empty.
