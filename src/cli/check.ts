@@ -4,18 +4,9 @@
  * runs about the median and Jarque–Bera. A side check the data cannot support (say, constant
  * squared deviations) is left out of the text and written as null in the JSON, with its reason.
  */
-import {
-  biasCheck,
-  resultOrReason,
-  lagTable,
-  normalityCheck,
-  runsCheck,
-  volatilityCheck,
-  type LagTable,
-  type Series,
-} from "../core";
+import { lagTable } from "../core";
 import { jointSpanText, lagTableText } from "../report";
-import { sideChecksText, type SideChecks } from "../report/sideChecksText";
+import { sideChecks, sideChecksText } from "../report/sideChecksText";
 import { columnSeries, pickColumn, readCsv } from "./csv";
 import { UsageError } from "./errors";
 import { lagTableJson, sideChecksJson, toJsonText } from "./json";
@@ -33,16 +24,4 @@ export function runCheck(argv: readonly string[]): string {
   return values.json === true
     ? toJsonText({ ...lagTableJson(result), ...sideChecksJson(side) })
     : `${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
-}
-
-function sideChecks(series: Series, table: LagTable): SideChecks {
-  return {
-    alpha: table.alpha,
-    volatility: resultOrReason(() =>
-      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
-    ),
-    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
-    runs: resultOrReason(() => runsCheck(series)),
-    normality: resultOrReason(() => normalityCheck(series)),
-  };
 }
