@@ -68,8 +68,9 @@ svg { display: block; max-width: none; }
 .explanation p { margin: 0.5em 0; }
 table { border-collapse: collapse; font-size: 0.8rem; margin: 6px 0 12px; font-variant-numeric: tabular-nums; width: 100%; max-width: 560px; }
 caption { text-align: left; color: ${PALETTE.muted}; padding-bottom: 4px; }
-th, td { padding: 2px 4px; text-align: right; border-bottom: 1px solid #ECE8E0; vertical-align: top; }
+th, td { padding: 2px 3px; text-align: right; border-bottom: 1px solid #ECE8E0; vertical-align: top; }
 td { white-space: nowrap; }
+table.figures { font-size: 0.75rem; }
 table.side-checks td.side-text { white-space: normal; }
 table.batch tr.flagged th { box-shadow: inset 3px 0 0 ${PALETTE.structure}; }
 table.side-checks th, table.side-checks td { text-align: left; }
