@@ -15,7 +15,7 @@
  * and attribute is escaped, so equal input gives byte-equal output.
  */
 import { scaleBand, scaleLinear } from "d3-scale";
-import { formatP, seasonalLags, type LagTable } from "../core";
+import { pPhrase, seasonalLags, type LagTable } from "../core";
 import {
   jointTestName,
   lagPoints,
@@ -70,7 +70,7 @@ export function zLimit(outerLevel: number): number {
 
 /** The y-scale rule in words, for the chart's key and its description. */
 function scaleRule(limit: number): string {
-  return `same z scale ±${figure(limit, 3)} on every tab; beyond it, pinned ▲▼`;
+  return `z scale ±${figure(limit, 3)} on every tab; beyond it: pinned`;
 }
 
 /** Lag ticks: every lag up to 12 lags, otherwise whole-number ticks from d3. */
@@ -93,14 +93,14 @@ const CAPTION_QUANTITIES: Readonly<Record<ChartView, string>> = {
 };
 
 /**
- * The chart's caption, two lines: what is drawn against which bands, and the joint test of the
- * same values with its p (the ribbon under the chart shows that test lag by lag).
+ * The chart's caption, two lines short enough for the pane's narrowest chart (260 px): what is
+ * drawn against which bands, and the joint test of the same values with its p (the ribbon under
+ * the chart shows that test lag by lag; its degrees of freedom are in the ribbon's cell titles).
  */
 export function chartCaption(table: LagTable, view: ChartView = defaultView(table)): string[] {
-  const df = table.fittedParams > 0 ? `, df ${table.joint.df}` : "";
   return [
     `${CAPTION_QUANTITIES[view]}, ${viewBandWords(table, view)}`,
-    `Joint test ${jointTestName(table)}, lags 1–${table.maxLag}${df}: p = ${formatP(table.joint.p)}`,
+    `Joint test ${jointTestName(table)}, lags 1–${table.maxLag}: ${pPhrase(table.joint.p)}`,
   ];
 }
 

@@ -79,7 +79,7 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
       `Joint test ribbon (${testName}): one cell per k. ${below.length === 0 ? "No k" : `k = ${below.join(", ")}`} ${below.length === 1 ? "has" : "have"} p below alpha ${alpha}. At the chosen K = ${table.maxLag}: p = ${formatP(table.joint.p)}.`,
     ),
   );
-  parts.push(text("caption", 4, 12, `Joint test ${testName} of lags 1…k, one cell per k`));
+  parts.push(text("caption", 4, 12, `Joint test ${testName} of lags 1…k, cell by cell`));
 
   for (const row of table.rows) {
     const p = row.jointP;

@@ -34,7 +34,7 @@ export const VIEW_QUANTITIES: Readonly<Record<ChartView, string>> = {
 export const BAND_WORDS: Readonly<Record<BandKind, string>> = {
   noise: "noise bands (se 1/√n)",
   bartlett: "Bartlett bands",
-  robust: "robust bands (volatility-robust se)",
+  robust: "robust bands (volatility)",
 };
 
 /**
@@ -42,7 +42,7 @@ export const BAND_WORDS: Readonly<Record<BandKind, string>> = {
  * standard error is 1/√n whatever the kind (Quenouille 1949).
  */
 export function viewBandWords(table: LagTable, view: ChartView): string {
-  return view === "partial" ? "partial bands (se 1/√n)" : BAND_WORDS[table.bandKind];
+  return view === "partial" ? "bands (se 1/√n)" : BAND_WORDS[table.bandKind];
 }
 
 /** The joint test that goes with a view: the table's own (McLeod–Li for the squares' table). */

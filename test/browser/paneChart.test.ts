@@ -57,10 +57,10 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
     await expect
       .poll(() => captions("#chart"))
       .toEqual([
-        "Autocorrelation, robust bands (volatility-robust se)",
+        "Autocorrelation, robust bands (volatility)",
         expect.stringMatching(/^Joint test robust Q\*, lags 1–10: p = /),
       ]);
-    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, one cell per k");
+    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, cell by cell");
   });
 
   it("puts the squared deviations' own joint test (McLeod–Li) in the ribbon on their tab", async () => {
@@ -68,12 +68,12 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
     await expect
       .poll(() => captions("#chart"))
       .toContain("Squared deviations, noise bands (se 1/√n)");
-    expect((await captions("#ribbon"))[0]).toBe("Joint test McLeod–Li of lags 1…k, one cell per k");
+    expect((await captions("#ribbon"))[0]).toBe("Joint test McLeod–Li of lags 1…k, cell by cell");
     // Volatility clusters in this scenario: McLeod–Li rejects at every k, so every cell is filled.
     expect(await page.locator("#ribbon rect.joint-cell.below").count()).toBe(10);
     await page.screenshot({ path: join(OUTPUT, "larkvale-squares-350.png"), fullPage: true });
     await page.click("#tab-correlation");
-    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, one cell per k");
+    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, cell by cell");
   });
 
   it("draws every chart and ribbon text at 11 px or larger", async () => {
@@ -88,5 +88,30 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
     );
     expect(sizes.length).toBeGreaterThan(10);
     for (const size of sizes) expect(size).toBeGreaterThanOrEqual(11);
+  });
+
+  it("keeps every caption and key inside its chart at the pane's narrowest chart width (260 px)", async () => {
+    await page.setViewportSize({ width: 280, height: 900 });
+    await page.selectOption("#set-band", "noise");
+    for (const tab of ["#tab-partial", "#tab-squares", "#tab-correlation"]) {
+      await page.click(tab);
+      const outside = await page.evaluate(() =>
+        Array.from(document.querySelectorAll("#chart svg text, #ribbon svg text"))
+          .map((t) => {
+            const svg = (t as SVGGraphicsElement).ownerSVGElement;
+            const box = (t as SVGGraphicsElement).getBBox();
+            const width = svg?.width.baseVal.value ?? 0;
+            return { text: t.textContent, left: box.x, right: box.x + box.width, width };
+          })
+          .filter((t) => t.left < 0 || t.right > t.width),
+      );
+      expect(outside, tab).toEqual([]);
+    }
+    const widths = await page.evaluate(() =>
+      Array.from(document.querySelectorAll("#chart svg, #ribbon svg")).map((s) =>
+        s.getAttribute("width"),
+      ),
+    );
+    expect(widths).toEqual(["260", "260"]);
   });
 });

@@ -288,11 +288,11 @@ describe("evidenceChartSvg(table)", () => {
     const robust = lagTable(series, { maxLag: 12, bandKind: "robust", testKind: "robust" });
     const captions = (svg: string) => withClass(svg, "caption").map((e) => e.text);
     expect(captions(evidenceChartSvg(robust))).toEqual([
-      "Autocorrelation, robust bands (volatility-robust se)",
+      "Autocorrelation, robust bands (volatility)",
       `Joint test robust Q*, lags 1–12: p = ${formatP(robust.joint.p)}`,
     ]);
     expect(captions(evidenceChartSvg(robust, { view: "partial" }))[0]).toBe(
-      "Partial autocorrelation, partial bands (se 1/√n)",
+      "Partial autocorrelation, bands (se 1/√n)",
     );
     const squares = lagTable(series, { maxLag: 12, testKind: "squares" });
     expect(captions(evidenceChartSvg(squares))).toEqual([
@@ -302,7 +302,7 @@ describe("evidenceChartSvg(table)", () => {
     const fitted = lagTable(series, { maxLag: 12, bandKind: "bartlett", fittedParams: 2 });
     expect(captions(evidenceChartSvg(fitted))).toEqual([
       "Autocorrelation, Bartlett bands",
-      `Joint test Ljung–Box, lags 1–12, df 10: p = ${formatP(fitted.joint.p)}`,
+      `Joint test Ljung–Box, lags 1–12: p = ${formatP(fitted.joint.p)}`,
     ]);
   });
 
@@ -323,7 +323,7 @@ describe("evidenceChartSvg(table)", () => {
     for (const svg of charts) {
       expect(elements(svg)[0]?.attributes["data-z-limit"]).toBe(String(PIN_LIMIT));
       expect(withClass(svg, "scale-rule")[0]?.text).toBe(
-        "same z scale ±6 on every tab; beyond it, pinned ▲▼",
+        "z scale ±6 on every tab; beyond it: pinned",
       );
     }
     // alpha 1e-9 over 10 lags puts the outer corridor at about ±6.4 (normal quantile of

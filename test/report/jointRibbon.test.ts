@@ -69,7 +69,7 @@ describe("jointRibbonSvg(table)", () => {
     const squares = lagTable(seriesF(), { maxLag: 8, testKind: "squares" });
     const svg = jointRibbonSvg(squares);
     expect(withClass(svg, "caption")[0]?.text).toBe(
-      "Joint test McLeod–Li of lags 1…k, one cell per k",
+      "Joint test McLeod–Li of lags 1…k, cell by cell",
     );
     const cells = withClass(svg, "joint-cell");
     expect(cells.map((c) => Number(c.attributes["data-p"]))).toEqual(
