@@ -9,6 +9,7 @@
  */
 /* eslint-disable @typescript-eslint/no-explicit-any -- the host hands over untyped cells */
 import {
+  pReferenceLabel,
   batchCheck,
   biasCheck,
   crossCorrelation,
@@ -244,16 +245,16 @@ export function seriesForecastAudit(
       season: optionalNumber("season", season),
       alpha: optionalNumber("alpha", alpha),
     });
-    const { bias, dependenceTest: test } = audit;
+    const { bias, dependenceTest: test, levels } = audit;
     return [
       ["bias: mean error", numberCell(bias.mean)],
-      [`bias: Newey–West se (${bias.hacLags} lags)`, numberCell(bias.se)],
-      ["bias: t", numberCell(bias.t)],
-      ["bias: p", numberCell(bias.p)],
+      [`bias: se (long-run variance, lags 0–${bias.horizon - 1})`, numberCell(bias.se)],
+      ["bias: corrected t", numberCell(bias.tCorrected)],
+      [`bias: p (t, ${bias.df} df)`, numberCell(bias.p)],
       ["dependence: lags tested", `${test.firstLag}–${test.maxLag}`],
       ["dependence: Q", numberCell(test.q)],
       ["dependence: df", test.df],
-      ["dependence: p", numberCell(test.p)],
+      [`dependence: p (${pReferenceLabel(levels.jointP)})`, numberCell(levels.jointP.p)],
       ["verdict", audit.verdict.word],
       ["reason", audit.verdict.reason],
     ];

@@ -57,3 +57,14 @@ export function binomialUpperTail(m: number, trials: number, prob: number): numb
   if (m > trials) return 0;
   return betainc(prob, m, trials - m + 1, true, false);
 }
+
+/**
+ * Two-sided p of Student's t with ν degrees of freedom, P(|T| ≥ |t|) = I_{ν/(ν+t²)}(ν/2, 1/2),
+ * the regularised incomplete beta taken directly (Abramowitz & Stegun 26.7.1), so a far-tail p
+ * keeps its digits.
+ */
+export function studentTwoSided(t: number, df: number): number {
+  if (Number.isNaN(t) || !(df > 0)) return NaN;
+  if (!Number.isFinite(t)) return P_VALUE_FLOOR;
+  return floored(betainc(df / (df + t * t), df / 2, 0.5, true, false));
+}

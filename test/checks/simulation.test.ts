@@ -64,7 +64,7 @@ describe("forecastAudit on simulated forecast errors", () => {
       const noise = whiteNoise(random, n);
       for (let t = 0; t < n; t++) buffer[t] = (noise[t] as number) + 0.3;
       const audit = forecastAudit(seriesFromNumbers(buffer), { horizon: 1 });
-      if (audit.bias.flagged && audit.verdict.word === "structure") found++;
+      if (audit.levels.biasFlagged && audit.verdict.word === "structure") found++;
     }
     expectAtLeast(found / runs, 0.9, `share of ${runs} runs with a 0.3σ bias found`);
   });
