@@ -1,13 +1,14 @@
 /**
  * The evidence chart as an SVG string: lags 1..K along the bottom, each lag's standardised value
  * as a diamond, between two nested flat corridors — the inner one at ±z_{1−α/2} (one lag on its
- * own) and the outer one at the Šidák level for all K lags together. Diamond colours say which
+ * own) and the outer one at the verdict's calibrated level for all K lags together (the core's
+ * outerLevel). Diamond colours say which
  * corridor holds each lag; the seasonal lags m and 2m sit in tinted, tagged columns; values beyond
  * the pin limit (±6, or just past the outer corridor if that is wider) sit at the edge under an
  * arrowhead. No stems, no bars from zero, no dashed lines: the two corridors carry the message.
  *
- * The chart says what it shows: a two-line caption on top names the values, the band kind and the
- * joint test with its p; the key at the bottom gives the corridor levels and the y-scale rule.
+ * The chart says what it shows: a caption on top names the values, the band kind and the joint
+ * test with its p and that p's reference; the key at the bottom gives the corridor levels and the y-scale rule.
  * One y-scale rule for every tab and every series: z runs over ±6 (the pin limit), so switching
  * tabs or items never rescales what the eye compares. All text is 11 px or larger.
  *
@@ -15,7 +16,7 @@
  * and attribute is escaped, so equal input gives byte-equal output.
  */
 import { scaleBand, scaleLinear } from "d3-scale";
-import { pPhrase, seasonalLags, type LagTable } from "../core";
+import { referencedPPhrase, seasonalLags, type LagTable } from "../core";
 import {
   jointTestName,
   lagPoints,
@@ -48,7 +49,7 @@ export interface LagFrame {
   readonly right: number;
 }
 
-const MARGIN = { top: 48, right: 10, bottom: 62, left: 34 };
+const MARGIN = { top: 62, right: 10, bottom: 62, left: 34 };
 
 export function lagFrame(width: number): LagFrame {
   return { width, left: MARGIN.left, right: width - MARGIN.right };
@@ -93,14 +94,16 @@ const CAPTION_QUANTITIES: Readonly<Record<ChartView, string>> = {
 };
 
 /**
- * The chart's caption, two lines short enough for the pane's narrowest chart (260 px): what is
- * drawn against which bands, and the joint test of the same values with its p (the ribbon under
- * the chart shows that test lag by lag; its degrees of freedom are in the ribbon's cell titles).
+ * The chart's caption, three lines short enough for the pane's narrowest chart (260 px): what is
+ * drawn against which bands; the joint test of the same values; its p as the verdict reads it,
+ * with the reference it comes from (permutation, χ², Monte Carlo). The ribbon under the chart
+ * shows the test lag by lag; its degrees of freedom are in the ribbon's cell titles.
  */
 export function chartCaption(table: LagTable, view: ChartView = defaultView(table)): string[] {
   return [
     `${CAPTION_QUANTITIES[view]}, ${viewBandWords(table, view)}`,
-    `Joint test ${jointTestName(table)}, lags 1–${table.maxLag}: ${pPhrase(table.joint.p)}`,
+    `Joint test ${jointTestName(table)} over lags 1–${table.maxLag}:`,
+    referencedPPhrase(table.levels.jointP),
   ];
 }
 
@@ -119,7 +122,7 @@ export function chartDescription(table: LagTable, view: ChartView = defaultView(
     `One-lag corridor ±${figure(table.innerLevel, 3)}; all-lags corridor ±${figure(table.outerLevel, 3)} for ${table.maxLag} lags together.`,
     `Lags between the corridors: ${list(between)}.`,
     `Lags beyond the all-lags corridor: ${list(beyond)}.`,
-    `${chartCaption(table, view)[1] ?? ""}.`,
+    `${chartCaption(table, view).slice(1).join(" ")}.`,
   ];
   const seasonal = seasonalLags(table.season, table.maxLag);
   if (seasonal.length > 0) parts.push(`Seasonal lags marked: ${seasonal.join(", ")}.`);
@@ -167,7 +170,7 @@ function chartText(
 export function evidenceChartSvg(table: LagTable, options: EvidenceChartOptions = {}): string {
   const view = options.view ?? defaultView(table);
   const width = options.width ?? 320;
-  const height = options.height ?? 260;
+  const height = options.height ?? 274;
   const id = options.idPrefix ?? "echolot-evidence";
   const points = lagPoints(table, view);
   const K = table.maxLag;
@@ -204,7 +207,7 @@ export function evidenceChartSvg(table: LagTable, options: EvidenceChartOptions 
       "title",
       {},
       name === "outer"
-        ? `all-lags corridor ±${figure(level, 3)}: holds for all ${K} lags together (Šidák)`
+        ? `all-lags corridor ±${figure(level, 3)}: holds for all ${K} lags together (the verdict's level)`
         : `one-lag corridor ±${figure(level, 3)}: one lag on its own at alpha ${figure(table.alpha, 3)}`,
     );
   const levels = { outer: table.outerLevel, inner: table.innerLevel } as const;

@@ -67,7 +67,7 @@ export function figuresTableHtml(table: LagTable, view: ChartView): string {
     view === "partial" ? "partial" : "r",
     "z",
     "corridor",
-    ...(withTests ? ["p (this lag)", `p (all ${table.maxLag} lags)`] : []),
+    ...(withTests ? ["p (this lag)", `p (Šidák, ${table.maxLag} lags)`] : []),
   ];
   const head = element(
     "tr",

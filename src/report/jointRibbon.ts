@@ -1,6 +1,7 @@
 /**
  * The joint-test ribbon as an SVG string: one cell per k = 1..K, under the evidence chart's lag
- * columns, holding the p-value of the joint test over lags 1..k. At or above alpha a cell is
+ * columns, holding the χ² p-value of the joint test over lags 1..k (the verdict's own p for K, by
+ * permutation where it uses one, is in the chart's caption). At or above alpha a cell is
  * neutral: a light fill inside a solid outline. Below alpha it is vermillion, deeper as −log10 p
  * grows, from #D55E00 at alpha to the palette's deepest shade at full strength (p = 1e-6, or twice
  * −log10 alpha when alpha is smaller still) — darker, never lighter, so every filled cell keeps 3:1
@@ -79,7 +80,7 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
       `Joint test ribbon (${testName}): one cell per k. ${below.length === 0 ? "No k" : `k = ${below.join(", ")}`} ${below.length === 1 ? "has" : "have"} p below alpha ${alpha}. At the chosen K = ${table.maxLag}: p = ${formatP(table.joint.p)}.`,
     ),
   );
-  parts.push(text("caption", 4, 12, `Joint test ${testName} of lags 1…k, cell by cell`));
+  parts.push(text("caption", 4, 12, `Joint test ${testName} of lags 1…k, χ² p by cell`));
 
   for (const row of table.rows) {
     const p = row.jointP;
@@ -119,7 +120,7 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
       "caption chosen-p",
       frame.right,
       cellTop + cellHeight + 14,
-      `outlined K = ${table.maxLag}: p = ${formatP(table.joint.p)}`,
+      `outlined K = ${table.maxLag}: χ² p = ${formatP(table.joint.p)}`,
       "end",
     ),
   );

@@ -1,7 +1,7 @@
 /**
  * The columns of the spilled lag table (SERIESLAGTABLE) and of the placed reports, built around
- * Echolot's own reading of a lag: its z, the corridor that holds it, and its p alone and for all K
- * lags together. The joint test over lags 1..k is not a per-lag figure and has its own view
+ * Echolot's own reading of a lag: its z, the corridor that holds it (the verdict's calibrated
+ * corridors), and its p alone and, by Šidák, for all K lags together. The joint test over lags 1..k is not a per-lag figure and has its own view
  * (`jointSpanText`, the ribbon, SERIESPORTMANTEAU). z stays in column D: the placed live report's
  * chart formulas read it there.
  */
@@ -17,7 +17,7 @@ export function lagTableHeader(table: LagTable): string[] {
     "z",
     "corridor",
     "p (this lag)",
-    `p (all ${table.maxLag} lags)`,
+    `p (Šidák, ${table.maxLag} lags)`,
   ];
 }
 

@@ -5,7 +5,7 @@
  * `jointSpanText`: one row per span of lags. Figures are rounded for reading only; the JSON output
  * keeps full precision.
  */
-import { formatP, type LagTable } from "../core";
+import { formatP, referencedPPhrase, type LagTable } from "../core";
 import { jointTestName, rowZone, viewBandWords } from "./lagViews";
 import { ZONE_SHORT } from "./palette";
 import { numberCell, pCell } from "./tableCells";
@@ -30,6 +30,7 @@ export function lagTableText(table: LagTable): string {
   );
   lines.push("");
   lines.push("  lag       z  corridor   p one lag  p all lags   autocorr   partial");
+  lines.push("                                     (Šidák)");
   for (const row of table.rows) {
     lines.push(
       [
@@ -45,8 +46,9 @@ export function lagTableText(table: LagTable): string {
   }
   lines.push("");
   lines.push(
-    `joint test ${jointTestName(table)}, lags 1–${K}: Q = ${table.joint.q.toFixed(4)}, df ${table.joint.df}, p = ${formatP(table.joint.p)}`,
+    `joint test ${jointTestName(table)}, lags 1–${K}: Q = ${table.joint.q.toFixed(4)}, df ${table.joint.df}, χ² p = ${formatP(table.joint.p)}`,
   );
+  lines.push(`  as the verdict reads it: ${referencedPPhrase(table.levels.jointP)}`);
   lines.push(`verdict: ${badge.shape} ${badge.word}`);
   lines.push(`  ${table.verdict.reason}`);
   lines.push("");
@@ -61,7 +63,7 @@ export function lagTableText(table: LagTable): string {
 export function jointSpanText(table: LagTable): string {
   const lines = [
     `joint test by lag span: ${jointTestName(table)} over lags 1..k (the verdict reads k = ${table.maxLag})`,
-    "  lags          Q   df          p",
+    "  lags          Q   df       χ² p",
   ];
   for (const row of table.rows) {
     lines.push(

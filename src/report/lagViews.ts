@@ -8,7 +8,7 @@
  * - `squares`: the autocorrelation of the squared deviations, from a lag table computed with
  *   testKind "squares" (the McLeod–Li view of volatility clustering).
  *
- * A point's zone says which corridor holds it: inside ±z_{1−α/2}, between that and the Šidák level
+ * A point's zone says which corridor holds it: inside ±z_{1−α/2}, between that and the outer level
  * for K lags, or beyond. The comparisons are the core's (`beyond`, `outer`) for the correlation
  * views and the same strict inequalities for the partials.
  */

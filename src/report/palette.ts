@@ -19,7 +19,7 @@ export const PALETTE = {
   inside: "#56636F",
   /** The inner corridor ±z_{1−α/2}: one lag on its own. */
   innerCorridor: "#E8E4DC",
-  /** The outer corridor (Šidák over K lags): all lags together. */
+  /** The outer corridor (the verdict's level for all K lags together). */
   outerCorridor: "#F4F1EA",
   /** The inner corridor's edge: 3:1 against both corridor fills. */
   innerEdge: "#6F685C",

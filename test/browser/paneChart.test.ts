@@ -49,7 +49,8 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
   it("names the band kind and the joint test in the chart's caption, and follows the settings", async () => {
     expect(await captions("#chart")).toEqual([
       "Autocorrelation, noise bands (se 1/√n)",
-      expect.stringMatching(/^Joint test Ljung–Box, lags 1–10: p = /),
+      "Joint test Ljung–Box over lags 1–10:",
+      expect.stringMatching(/^p [=<] \S+ (by|from) /),
     ]);
     await page.screenshot({ path: join(OUTPUT, "larkvale-noise-350.png"), fullPage: true });
     await page.selectOption("#set-band", "robust");
@@ -58,9 +59,10 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
       .poll(() => captions("#chart"))
       .toEqual([
         "Autocorrelation, robust bands (volatility)",
-        expect.stringMatching(/^Joint test robust Q\*, lags 1–10: p = /),
+        "Joint test robust Q* over lags 1–10:",
+        expect.stringMatching(/^p [=<] \S+ (by|from) /),
       ]);
-    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, cell by cell");
+    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, χ² p by cell");
   });
 
   it("puts the squared deviations' own joint test (McLeod–Li) in the ribbon on their tab", async () => {
@@ -68,12 +70,12 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
     await expect
       .poll(() => captions("#chart"))
       .toContain("Squared deviations, noise bands (se 1/√n)");
-    expect((await captions("#ribbon"))[0]).toBe("Joint test McLeod–Li of lags 1…k, cell by cell");
+    expect((await captions("#ribbon"))[0]).toBe("Joint test McLeod–Li of lags 1…k, χ² p by cell");
     // Volatility clusters in this scenario: McLeod–Li rejects at every k, so every cell is filled.
     expect(await page.locator("#ribbon rect.joint-cell.below").count()).toBe(10);
     await page.screenshot({ path: join(OUTPUT, "larkvale-squares-350.png"), fullPage: true });
     await page.click("#tab-correlation");
-    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, cell by cell");
+    expect((await captions("#ribbon"))[0]).toBe("Joint test robust Q* of lags 1…k, χ² p by cell");
   });
 
   it("draws every chart and ribbon text at 11 px or larger", async () => {

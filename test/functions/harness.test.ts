@@ -114,7 +114,7 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
       "z",
       "corridor",
       "p (this lag)",
-      "p (all 10 lags)",
+      "p (Šidák, 10 lags)",
     ]);
     expect(result.length).toBe(11);
     coreF10.rows.forEach((row, i) => {

@@ -69,7 +69,7 @@ describe("jointRibbonSvg(table)", () => {
     const squares = lagTable(seriesF(), { maxLag: 8, testKind: "squares" });
     const svg = jointRibbonSvg(squares);
     expect(withClass(svg, "caption")[0]?.text).toBe(
-      "Joint test McLeod–Li of lags 1…k, cell by cell",
+      "Joint test McLeod–Li of lags 1…k, χ² p by cell",
     );
     const cells = withClass(svg, "joint-cell");
     expect(cells.map((c) => Number(c.attributes["data-p"]))).toEqual(
@@ -90,7 +90,7 @@ describe("jointRibbonSvg(table)", () => {
       PALETTE.ribbonDeepest,
     ]);
     expect(withClass(svg, "chosen-p")[0]?.text).toBe(
-      `outlined K = 12: p = ${formatP(table.joint.p)}`,
+      `outlined K = 12: χ² p = ${formatP(table.joint.p)}`,
     );
   });
 

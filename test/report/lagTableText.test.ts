@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { lagTable } from "../../src/core";
+import { lagTable, referencedPPhrase } from "../../src/core";
 import { jointSpanText, lagTableHeader, lagTableText, lagTableValues } from "../../src/report";
 import { seriesF } from "./chartTree";
 
@@ -20,7 +20,8 @@ describe("lagTableText(table)", () => {
     const found = rows(text);
     expect(found.map((r) => Number(r[0]))).toEqual(table.rows.map((r) => r.lag));
     // Series F: r_1 = −0.389878 (e-Handbook §6.4.4.9), z_1 = r_1·√70 = −3.26, beyond the
-    // all-lags corridor ±2.80; r_2 = 0.304394, z = 2.55, between; r_3 = −0.165555, z = −1.39, inside.
+    // all-lags corridor (about ±2.6–2.8); r_2 = 0.304394, z = 2.55, between; r_3 = −0.165555,
+    // z = −1.39, inside.
     expect(found[0]?.slice(0, 3)).toEqual(["1", "-3.26", "beyond"]);
     expect(found[1]?.slice(0, 3)).toEqual(["2", "2.55", "between"]);
     expect(found[2]?.slice(0, 3)).toEqual(["3", "-1.39", "inside"]);
@@ -30,8 +31,13 @@ describe("lagTableText(table)", () => {
   it("keeps the joint test out of the rows: one line at the chosen K, then the verdict", () => {
     for (const row of rows(text)) expect(row).toHaveLength(7);
     expect(text).not.toMatch(/p\(joint\)|\bQ\b.*\bdf\b.*p\(/);
-    expect(text).toContain("joint test Ljung–Box, lags 1–10: Q = 21.5915, df 10, p = 0.017");
-    expect(text).toContain("corridors in z: one lag ±1.960, all 10 lags ±2.800");
+    expect(text).toContain("joint test Ljung–Box, lags 1–10: Q = 21.5915, df 10, χ² p = 0.017\n");
+    expect(text).toContain(
+      `  as the verdict reads it: ${referencedPPhrase(table.levels.jointP)}\n`,
+    );
+    expect(text).toContain(
+      `corridors in z: one lag ±1.960, all 10 lags ±${table.outerLevel.toFixed(3)}`,
+    );
     expect(text).toMatch(/verdict: ■ structure/);
   });
 });
@@ -71,7 +77,7 @@ describe("lagTableHeader(table) and lagTableValues(row): SERIESLAGTABLE's column
     const table = lagTable(seriesF(), { maxLag: 10 });
     // The header itself is checked through the built function (test/functions/harness.test.ts).
     const header = lagTableHeader(table);
-    expect(header.slice(3)).toEqual(["z", "corridor", "p (this lag)", "p (all 10 lags)"]);
+    expect(header.slice(3)).toEqual(["z", "corridor", "p (this lag)", "p (Šidák, 10 lags)"]);
     const first = table.rows[0];
     if (first === undefined) throw new Error("no lag 1");
     expect(lagTableValues(first)).toEqual([
