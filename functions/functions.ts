@@ -102,8 +102,8 @@ export function seriesBand(
  * @param [maxLag] Highest lag, a whole number from 1 to n − 1. Default: min(10, n/5), or min(2·season, n/5).
  * @param [alpha] Significance level, between 0 and 1. Default: 0.05.
  * @param [bandKind] "noise" (default), "bartlett" or "robust": the standard error behind z.
- * @param [season] Periods in one cycle, a whole number from 2 (12 for monthly data); sets the default maxLag. 0 or omitted: none.
- * @returns Header, then per lag: lag, autocorrelation, partial, z, p of this lag, p corrected for all lags (Šidák), Ljung–Box p of lags 1 to this one.
+ * @param [season] Periods in one cycle, a whole number from 2 (12 for monthly data); sets the default maxLag.
+ * @returns Header, then per lag: lag, autocorrelation, partial, z, corridor (inside, between or beyond), p of this lag, p for all lags together (Šidák).
  */
 export function seriesLagTable(
   series: any[][],

@@ -5,18 +5,9 @@
  * deviations) is left out of the text and written as null in the JSON, with its reason. The
  * column analysed is named first, with any column passed over on the way to it.
  */
-import {
-  biasCheck,
-  resultOrReason,
-  lagTable,
-  normalityCheck,
-  runsCheck,
-  volatilityCheck,
-  type LagTable,
-  type Series,
-} from "../core";
-import { lagTableText } from "../report";
-import { sideChecksText, type SideChecks } from "../report/sideChecksText";
+import { lagTable } from "../core";
+import { jointSpanText, lagTableText } from "../report";
+import { sideChecks, sideChecksText } from "../report/sideChecksText";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
@@ -46,17 +37,5 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
   const side = sideChecks(series, result);
   return values.json === true
     ? toJsonText({ source, ...lagTableJson(result), ...sideChecksJson(side) })
-    : `read: ${source}\n\n${lagTableText(result)}\n\n${sideChecksText(side)}`;
-}
-
-function sideChecks(series: Series, table: LagTable): SideChecks {
-  return {
-    alpha: table.alpha,
-    volatility: resultOrReason(() =>
-      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
-    ),
-    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
-    runs: resultOrReason(() => runsCheck(series)),
-    normality: resultOrReason(() => normalityCheck(series)),
-  };
+    : `read: ${source}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
 }

@@ -10,7 +10,7 @@
  */
 import { formatP, TEST_NAMES, type LagTable } from "../core";
 import { explainVerdict, type Explanation } from "./explain";
-import { lagTableHeader, lagTableValues } from "./lagTableHeader";
+import { LAG_TABLE_Z_COLUMN, lagTableHeader, lagTableValues } from "./lagTableHeader";
 import { rowZone } from "./lagViews";
 import { PALETTE } from "./palette";
 import { SCREENING_CAUTION } from "./verdictBadge";
@@ -228,7 +228,9 @@ function buildPlan(
     text(6, 3, numberOrEmpty(table.joint.p));
     lagTableHeader(table).forEach((h, c) => text(TABLE_ROW, c, h));
     table.rows.forEach((r, i) => {
-      lagTableValues(r).forEach((v, c) => text(TABLE_ROW + 1 + i, c, numberOrEmpty(v)));
+      lagTableValues(r).forEach((v, c) =>
+        text(TABLE_ROW + 1 + i, c, typeof v === "number" ? numberOrEmpty(v) : v),
+      );
     });
   }
 
@@ -249,7 +251,7 @@ function buildPlan(
     text(row, HELPER_COLUMN + 2, 2 * table.innerLevel);
     text(row, HELPER_COLUMN + 3, gap);
     if (kind === "live") {
-      const z = `$D${row + 1}`; // the z column of the spilled lag table
+      const z = `$${columnLetters(LAG_TABLE_Z_COLUMN)}${row + 1}`; // the spilled table's z
       const guard = (test: string) => ({
         formula: `=IF(ISNUMBER(${z}),IF(${test},${z},NA()),NA())`,
       });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { lagTable, seriesFromCells, type LagTable } from "../../src/core";
-import { PALETTE, liveReportPlan, snapshotReportPlan } from "../../src/report";
+import { PALETTE, ZONE_SHORT, liveReportPlan, rowZone, snapshotReportPlan } from "../../src/report";
 import { absoluteReference } from "../../taskpane/host/address";
 import { literalText, placeReport } from "../../taskpane/host/placeReport";
 import { readSelectedRange } from "../../taskpane/host/readRange";
@@ -126,7 +126,7 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
         x: "A10:A19",
         type: "LineMarkers",
         marker: "Diamond",
-        colour: "#E69F00",
+        colour: "#8A5F00",
       },
       {
         name: "beyond all-lags corridor",
@@ -191,9 +191,9 @@ describe("placeReport(run, snapshotReportPlan(table))", () => {
         r?.correlation,
         r?.partial,
         r?.z,
+        r === undefined ? "" : ZONE_SHORT[rowZone(r)],
         r?.pLag,
         r?.pSidak,
-        r?.jointP,
       ]);
     });
     // One diamond column per zone holds each lag's z; the other two are empty.
