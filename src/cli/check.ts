@@ -5,18 +5,9 @@
  * deviations) is left out of the text and written as null in the JSON, with its reason. The
  * column analysed is named first, with any column passed over on the way to it.
  */
-import {
-  biasCheck,
-  resultOrReason,
-  lagTable,
-  normalityCheck,
-  runsCheck,
-  volatilityCheck,
-  type LagTable,
-  type Series,
-} from "../core";
-import { lagTableText } from "../report";
-import { sideChecksText, type SideChecks } from "../report/sideChecksText";
+import { lagTable } from "../core";
+import { jointSpanText, lagTableText } from "../report";
+import { sideChecks, sideChecksText } from "../report/sideChecksText";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
@@ -43,25 +34,11 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
     readingFrom(file, values),
     textOption(values, "column"),
   );
-  releaseBetweenSteps(series.count);
+  const release = () => releaseBetweenSteps(series.count);
+  release();
   const result = lagTable(series, options);
-  const side = sideChecks(series, result);
+  const side = sideChecks(series, result, release);
   return values.json === true
     ? toJsonText({ source, ...lagTableJson(result), ...sideChecksJson(side) })
-    : `read: ${source}\n\n${lagTableText(result)}\n\n${sideChecksText(side)}`;
-}
-
-/** The side checks one after the other, the garbage of each released before the next. */
-function sideChecks(series: Series, table: LagTable): SideChecks {
-  const step = <T>(compute: () => T): T | string => {
-    releaseBetweenSteps(series.count);
-    return resultOrReason(compute);
-  };
-  return {
-    alpha: table.alpha,
-    volatility: step(() => volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha })),
-    bias: step(() => biasCheck(series, { alpha: table.alpha })),
-    runs: step(() => runsCheck(series)),
-    normality: step(() => normalityCheck(series)),
-  };
+    : `read: ${source}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
 }

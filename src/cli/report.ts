@@ -1,14 +1,26 @@
 /**
- * `echolot report FILE [check options] --out report.html [--force]`: the pane's view of one
- * column as a self-contained HTML file — verdict badge, evidence chart (correlation, partial,
- * squared deviations), joint-test ribbon, explanation and figures; no script, nothing loaded from
- * anywhere. The file is written safely (output.ts): never over the input, never over an existing
- * file without --force, never half-written.
+ * `echolot report FILE [check options] --out report.html [--force]`: a self-contained HTML file.
+ * One column (named with --column, or the only series in the file) gives the pane's view of it —
+ * verdict badge, evidence chart (correlation, partial, squared deviations), joint-test ribbon,
+ * explanation, side checks and figures. A file with several series gives a batch report: the
+ * ranked table, then each series' chart on demand. The report names the input by its file name
+ * only: a folder path says nothing to a reader and may say too much about the writer. The file is
+ * written safely (output.ts): never over the input, never over an existing file without --force,
+ * never half-written.
  */
-import { BADGES, seriesReport, seriesReportHtml } from "../report";
+import { basename } from "node:path";
+import { batchCheck, isEcholotError, type LagOptions, type Series } from "../core";
+import {
+  BADGES,
+  batchReportHtml,
+  seriesReport,
+  seriesReportHtml,
+  settingsLine,
+  type BatchItem,
+} from "../report";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { readOneSeries } from "./input";
+import { readManySeries, readOneSeries } from "./input";
 import {
   LAG_OPTIONS,
   lagOptionsFrom,
@@ -17,6 +29,7 @@ import {
   type ParsedCommand,
 } from "./options";
 import { writeOutFile } from "./output";
+import { ECHOLOT_VERSION } from "./version";
 
 export const REPORT_OPTIONS = ["column", ...LAG_OPTIONS, ...READ_OPTIONS, "out", "force"];
 
@@ -30,14 +43,63 @@ export async function runReport({ files, values }: ParsedCommand): Promise<strin
     throw new UsageError("report needs --out FILE.html: where to write the report");
   }
   const options = lagOptionsFrom(values);
-  const { series, source, column } = await readOneSeries(
-    readingFrom(file, values),
-    textOption(values, "column"),
-  );
-  const report = seriesReport(series, options);
-  const html = seriesReportHtml(report, `${file}, column ${column.index + 1}`);
-  writeOutFile(out, html, values.force === true, [file]);
-  const badge = BADGES[report.table.verdict.word];
-  const name = report.table.label === "" ? "the series" : report.table.label;
-  return `read: ${source}\nwrote ${out}: ${name}, ${badge.shape} ${badge.word}`;
+  const meta = { made: new Date(), version: ECHOLOT_VERSION };
+  const name = file === "-" ? "standard input" : basename(file);
+  const chosen = textOption(values, "column");
+  let html: string;
+  let said: string;
+  let source: string;
+  let single: { series: Series; label: string } | undefined;
+  if (chosen === undefined) {
+    const many = await readManySeries(readingFrom(file, values), values);
+    source = many.source;
+    if (many.series.length >= 2) {
+      ({ html, said } = batchReport(many.series, options, { ...meta, title: name }));
+    } else {
+      const series = many.series[0];
+      if (series === undefined) throw new UsageError(`${name} has no series to report on`);
+      single = { series, label: series.label === "" ? "column 1" : series.label };
+    }
+  } else {
+    const one = await readOneSeries(readingFrom(file, values), chosen);
+    source = one.source;
+    single = { series: one.series, label: one.column.name };
+  }
+  if (single !== undefined) {
+    const report = seriesReport(single.series, options);
+    html = seriesReportHtml(report, { ...meta, source: `${name}, column “${single.label}”` });
+    const badge = BADGES[report.table.verdict.word];
+    const shown = report.table.label === "" ? "the series" : report.table.label;
+    said = `${shown}, ${badge.shape} ${badge.word}`;
+  }
+  writeOutFile(out, html!, values.force === true, [file]);
+  return `read: ${source}\nwrote ${out}: ${said!}`;
+}
+
+function batchReport(
+  columns: readonly Series[],
+  options: LagOptions,
+  meta: { made: Date; version: string; title: string },
+): { html: string; said: string } {
+  const batch = batchCheck(columns, options);
+  const items: BatchItem[] = columns.map((series, i) => {
+    try {
+      return seriesReport(series, options);
+    } catch (error) {
+      if (!isEcholotError(error)) throw error;
+      return { label: batch.rows[i]?.label ?? `series ${i + 1}`, reason: error.message };
+    }
+  });
+  const first = items.find((item) => "table" in item);
+  const settings =
+    first === undefined || !("table" in first) ? "" : `${settingsLine(first.table)} (each series)`;
+  const html = batchReportHtml(batch, items, {
+    ...meta,
+    source: meta.title,
+    settings: `${columns.length} columns of numbers · ${settings}`,
+  });
+  return {
+    html,
+    said: `batch report of ${columns.length} columns, ${batch.flaggedFdr} flagged after the false-discovery step`,
+  };
 }

@@ -56,7 +56,7 @@ const REFERENCE_WORDS: Readonly<Record<ReferencedP["reference"], string>> = {
   "monte-carlo": "Monte Carlo",
 };
 
-/** Where a p-value comes from, for labels: "permutation, 999 draws", "χ²". */
+/** Where a p-value comes from, for labels: "permutation, 499 draws", "χ²". */
 export function pReferenceLabel(rp: ReferencedP): string {
   return rp.draws > 0
     ? `${REFERENCE_WORDS[rp.reference]}, ${rp.draws.toLocaleString("en-US")} draws`
@@ -65,7 +65,7 @@ export function pReferenceLabel(rp: ReferencedP): string {
 
 /**
  * A p-value with its reference, as a clause without brackets (it often stands inside some):
- * "p = 0.004 by permutation of 999 draws", "p < 5e-5 by permutation of 19,999 draws" when no draw
+ * "p = 0.004 by permutation of 499 draws", "p < 5e-5 by permutation of 19,999 draws" when no draw
  * reached the statistic, "p = 0.012 from χ²", "p < 1e-300 from χ²".
  */
 export function referencedPPhrase(rp: ReferencedP): string {

@@ -61,10 +61,13 @@ export function horizonBias(series: Series, horizon: number): HorizonBias {
   const n = series.count;
   let gamma: Float64Array;
   let mean: number;
+  let scale: number;
   try {
     const ac = autocorrelation(series, Math.min(horizon - 1, series.values.length - 1));
-    gamma = ac.autocovariance;
+    // In the deviations' own scale (centre.ts), as the bias check does.
+    gamma = ac.correlation.map((r) => (r * ac.sumSquares) / n);
     mean = ac.mean;
+    scale = ac.scale;
   } catch (error) {
     if (!isEcholotError(error)) throw error;
     invalid(
@@ -72,15 +75,15 @@ export function horizonBias(series: Series, horizon: number): HorizonBias {
     );
   }
   const { value, fallback } = rectangularVariance(gamma, horizon);
-  const se = Math.sqrt(value / n);
-  const t = mean / se;
+  const t = mean / scale / Math.sqrt(value / n);
+  const se = Math.sqrt(value / n) * scale;
   const correction = hlnCorrection(n, horizon);
   const tCorrected = t * correction;
   return {
     n,
     horizon,
     mean,
-    longRunVariance: value,
+    longRunVariance: value * scale * scale,
     se,
     t,
     correction,

@@ -29,7 +29,20 @@ export interface IntakeOptions {
 export function cellErrorCode(cell: unknown): string | undefined {
   if (typeof cell !== "object" || cell === null) return undefined;
   const code = (cell as { code?: unknown }).code;
-  return typeof code === "string" && code.startsWith("#") ? code : undefined;
+  if (typeof code === "string" && code.startsWith("#")) return code;
+  return dataTypeErrorCode(cell);
+}
+
+/**
+ * The code of an error given as a data-type value, which a host passes when data types are on
+ * (Excel.ErrorCellValue: `{ type: "Error", basicValue: "#N/A", errorType: "NotAvailable" }`;
+ * learn.microsoft.com, "Use data types with custom functions in Excel").
+ */
+function dataTypeErrorCode(cell: object): string | undefined {
+  const { type, basicValue } = cell as { type?: unknown; basicValue?: unknown };
+  return type === "Error" && typeof basicValue === "string" && basicValue.startsWith("#")
+    ? basicValue
+    : undefined;
 }
 
 function isBlank(cell: unknown): boolean {

@@ -11,7 +11,7 @@
  * Cost O(n log n) for the median.
  */
 import { normalTwoSided } from "./distributions";
-import { invalid, seriesName } from "./errors";
+import { invalid, seriesName, tooShort } from "./errors";
 import { requireValues } from "./options";
 import type { Series } from "./types";
 
@@ -55,6 +55,11 @@ export function runsTest(sides: ArrayLike<boolean | number>): RunsCount {
   const product = 2 * above * below;
   const expected = product / total + 1;
   const variance = (product * (product - total)) / (total * total * (total - 1));
+  if (!(variance > 0)) {
+    tooShort(
+      `a runs test needs at least 3 values off the median; got ${above} above and ${below} below, whose number of runs cannot vary`,
+    );
+  }
   const sd = Math.sqrt(variance);
   const z = (runs - expected) / sd;
   return { above, below, runs, expected, sd, z, p: normalTwoSided(z) };

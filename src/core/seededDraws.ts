@@ -145,7 +145,7 @@ export function xoshiro128(seedHi: number, seedLo: number): DrawStream {
     let d = s3;
     for (let i = values.length - 1; i > 0; i--) {
       const bound = i + 1;
-      let j = 0;
+      let j: number;
       for (;;) {
         const x = Math.imul(rotl(Math.imul(b, 5), 7), 9) >>> 0;
         const t = b << 9;
