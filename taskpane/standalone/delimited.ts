@@ -20,6 +20,7 @@ import {
   seriesColumnsOf,
   seriesFromValues,
   TableBuilder,
+  type ColumnLook,
   type OptionWords,
   type Series,
 } from "../../src/core";
@@ -30,6 +31,16 @@ const PANE_WORDS: OptionWords = {
   gapWord: (word) => `replace "${word}" with an empty cell`,
   decimalComma: "use one decimal mark throughout",
   noHeader: "remove that row",
+};
+
+const LOOK_WORDS: Readonly<Record<ColumnLook, string>> = {
+  series: "numbers",
+  empty: "empty",
+  text: "text",
+  dates: "dates",
+  yyyymmdd: "yyyymmdd dates",
+  "serial dates": "date serials",
+  counter: "an id or time column",
 };
 
 function records(text: string, origin: string): { rows: string[][]; decimal: "." | "," } {
@@ -45,7 +56,7 @@ function records(text: string, origin: string): { rows: string[][]; decimal: "."
 
 export interface TextSeries {
   readonly series: Series[];
-  /** Columns left aside because they are not series, each with why. */
+  /** Columns left aside because they are not series, each with a word on why: "date (dates)". */
   readonly skipped: string[];
 }
 
@@ -92,11 +103,11 @@ export function seriesFromText(text: string, origin: string): TextSeries {
   }
   const table = builder.finish();
   const { series: columns, leftOut } = seriesColumnsOf(table);
-  const skipped = leftOut.map((l) => `${columnPlace(table, l.column)} ${l.reason}`);
   if (columns.length === 0) {
-    invalid(
-      `${origin} has no column of numbers${skipped.length > 0 ? `: ${skipped.join("; ")}` : ""}`,
-    );
+    const why = leftOut.map((l) => `${columnPlace(table, l.column)} ${l.reason}`).join("; ");
+    invalid(`${origin} has no column of numbers${why === "" ? "" : `: ${why}`}`);
   }
+  // The pane's line under the label is short: each column left aside with a word on why.
+  const skipped = leftOut.map((l) => `${l.column.name} (${LOOK_WORDS[l.column.look]})`);
   return { series: columns.map((column) => columnSeries(table, column)), skipped };
 }
