@@ -116,30 +116,35 @@ describe("SERIESFORECASTAUDIT(errors, horizon, season, alpha)", () => {
   it("spills the two-column audit table equal to the core's audit", () => {
     const result = call("SERIESFORECASTAUDIT", seriesFColumn, 3);
     const audit = forecastAudit(coreF, { horizon: 3 });
+    const drawn = audit.levels.jointP;
     expect(result.map((r) => r[0])).toEqual([
       "bias: mean error",
-      "bias: Newey–West se (3 lags)",
-      "bias: t",
-      "bias: p",
+      "bias: se (long-run variance, lags 0–2)",
+      "bias: corrected t",
+      "bias: p (t, 69 df)",
       "dependence: lags tested",
       "dependence: Q",
       "dependence: df",
-      "dependence: p",
+      `dependence: p (Monte Carlo, ${drawn.draws.toLocaleString("en-US")} draws)`,
       "verdict",
       "reason",
     ]);
     expect(result.map((r) => r[1])).toEqual([
       audit.bias.mean,
       audit.bias.se,
-      audit.bias.t,
+      audit.bias.tCorrected,
       audit.bias.p,
       "3–12",
       audit.dependenceTest.q,
       10,
-      audit.dependenceTest.p,
+      drawn.p,
       "structure",
       audit.verdict.reason,
     ]);
+    // Derived (METHODS.md, Harvey, Leybourne & Newbold 1997 with exact sums and 40-digit
+    // tails): Series F as 3-step errors, t* = 38.3151803494, p = 3.09141041114e−48.
+    expectClose(numberAt(result, 2, 1), 38.3151803494, { rel: 1e-9 }, "Series F h 3: t*");
+    expectClose(numberAt(result, 3, 1), 3.09141041114e-48, { rel: 1e-8 }, "Series F h 3: p");
   });
 
   it("defaults the horizon to 1 (every lag counted)", () => {
