@@ -206,12 +206,13 @@ describe("SERIESCROSSCORR(x, y, maxLag)", () => {
 });
 
 describe("SERIESROLLCHECK(series, window, lags, step)", () => {
-  it("is aligned row for row with its input: label and leading gaps empty, then one p per window end", () => {
+  it("is aligned row for row with its input down to its last value: label and leading gaps empty, then one p per window end", () => {
     const cells = ["yield", "", "", ...seriesF, ""];
     const result = call("SERIESROLLCHECK", columnRange(cells), 30, 5, 2);
-    expect(result.length, "one output row per input row").toBe(cells.length);
+    // The trailing blank row gets no output row: the spill ends at the last value.
+    expect(result.length, "one output row per input row to the last value").toBe(cells.length - 1);
     const core = rollingCheck(coreF, { window: 30, lags: 5, step: 2 });
-    for (let r = 0; r < cells.length; r++) {
+    for (let r = 0; r < result.length; r++) {
       const position = r - 3;
       const expected = position >= 0 && position < 70 ? core.p[position] : NaN;
       const cell = result[r]?.[0];
