@@ -161,7 +161,7 @@ describe("the built pane in a browser, standalone", () => {
     await page.setInputFiles("#file-pick", join(ROOT, "demo", "larkvale-fund-residuals.csv"));
     await expect.poll(() => page.textContent("#series-label")).toBe("residual");
     expect(await page.textContent("#series-meta")).toBe(
-      "n = 750 · no gaps · larkvale-fund-residuals.csv (left aside: date)",
+      'n = 750 · no gaps · larkvale-fund-residuals.csv (left aside: column 1 ("date") holds dates (2023-01-02, 2023-01-03, 2023-01-04, …): a time column)',
     );
     expect(await page.isVisible("#batch-panel")).toBe(false);
   });
@@ -171,7 +171,7 @@ describe("the built pane in a browser, standalone", () => {
     await page.click("#paste-read");
     await expect.poll(() => page.isVisible("#problem")).toBe(true);
     expect(await page.textContent("#problem")).toBe(
-      'Row 4, column 1 ("errors") of the pasted values holds the text "abc"; only numbers, blanks and #N/A (gaps) may follow the label',
+      'Line 4, column 1 ("errors") of the pasted values holds "abc", which is not a number: write a number, or leave the cell empty or NA for a gap',
     );
     expect(await page.isVisible("#result")).toBe(false);
   });
