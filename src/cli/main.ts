@@ -8,6 +8,7 @@ import { runBatch } from "./batch";
 import { runCheck } from "./check";
 import { runDemo } from "./demo";
 import { runReport } from "./report";
+import { runWorkbook } from "./workbook";
 import { UsageError } from "./errors";
 
 const USAGE = `usage:
@@ -17,15 +18,17 @@ const USAGE = `usage:
   echolot batch FILE.csv [--lags K] [--season M] [--fitted P] [--alpha A]
                          [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
   echolot report FILE.csv [same options as check] --out report.html
+  echolot workbook FILE.csv [same options as check] [--batch] --out book.xlsx [--force]
   echolot demo`;
 
-type Command = (argv: readonly string[]) => string;
+type Command = (argv: readonly string[]) => string | Promise<string>;
 
 const COMMANDS: Readonly<Record<string, Command>> = {
   check: runCheck,
   audit: runAudit,
   batch: runBatch,
   report: runReport,
+  workbook: runWorkbook,
   demo: () => runDemo(),
 };
 
@@ -41,7 +44,7 @@ function cliWording(message: string): string {
     .replace(/^horizon\b/, "--horizon");
 }
 
-export function main(argv: readonly string[]): number {
+export function main(argv: readonly string[]): number | Promise<number> {
   const [name, ...rest] = argv;
   if (name === "--help" || name === "help") {
     process.stdout.write(`${USAGE}\n`);
@@ -55,16 +58,27 @@ export function main(argv: readonly string[]): number {
   try {
     if (command === undefined) throw new UsageError(`unknown command "${name}"\n${USAGE}`);
     const output = command(rest);
-    process.stdout.write(output.endsWith("\n") ? output : `${output}\n`);
-    return 0;
+    if (typeof output !== "string") return output.then(written, failed);
+    return written(output);
   } catch (error) {
-    if (error instanceof UsageError || isEcholotError(error)) {
-      process.stderr.write(`echolot: ${cliWording(error.message)}\n`);
-      return 2;
-    }
-    process.stderr.write(`echolot: internal error: ${(error as Error).stack ?? String(error)}\n`);
-    return 1;
+    return failed(error);
   }
 }
 
-process.exitCode = main(process.argv.slice(2));
+function written(output: string): number {
+  process.stdout.write(output.endsWith("\n") ? output : `${output}\n`);
+  return 0;
+}
+
+function failed(error: unknown): number {
+  if (error instanceof UsageError || isEcholotError(error)) {
+    process.stderr.write(`echolot: ${cliWording(error.message)}\n`);
+    return 2;
+  }
+  process.stderr.write(`echolot: internal error: ${(error as Error).stack ?? String(error)}\n`);
+  return 1;
+}
+
+void Promise.resolve(main(process.argv.slice(2))).then((code) => {
+  process.exitCode = code;
+});

@@ -12,3 +12,7 @@ export * from "./htmlReport";
 export * from "./lagTableHeader";
 export * from "./placedReport";
 export * from "./seriesReport";
+export * from "./portableFormulas";
+export * from "./portablePlan";
+export * from "./portableBatch";
+export * from "./portableChartXml";
