@@ -298,11 +298,19 @@ export interface DemoPortable {
   readonly options: LagOptions;
 }
 
-/** The demo's portable plans: the blends' batch and the fund's report. */
-export function demoPortablePlans(directory: string, placedOn: string): DemoPortable[] {
+/**
+ * The demo's portable plans: the blends' batch and the fund's report. `blendLags` fixes the
+ * blends' K (a report keeps the K it was written with when its data grow); by default each
+ * blend's K is the add-in's default for its length and season.
+ */
+export function demoPortablePlans(
+  directory: string,
+  placedOn: string,
+  blendLags: number | null = null,
+): DemoPortable[] {
   const [ternpoint, larkvale] = demoLayouts(directory);
   if (ternpoint === undefined || larkvale === undefined) throw new Error("demo layouts missing");
-  const blendOptions: LagOptions = { season: TERNPOINT_SEASON };
+  const blendOptions: LagOptions = { season: TERNPOINT_SEASON, maxLag: blendLags };
   const tdata = ternpoint.sheet.data;
   const items: PortableBatchItem[] = [];
   for (let c = 1; c < (tdata[0]?.length ?? 1); c++) {

@@ -69,6 +69,19 @@ export function convertWithLibreOffice(files: readonly string[], format: "xlsx" 
 /** A cell's value as computed: a number, a string, an error text such as "#N/A", or null. */
 export type CellReading = number | string | null;
 
+/**
+ * What a cell shows after LibreOffice computed it. A formula's result is taken from the cell's
+ * model: exceljs's `value` leaves out a result of 0.
+ */
+export function readCell(cell: ExcelJS.Cell | undefined): CellReading {
+  if (cell === undefined) return null;
+  if (cell.type === ExcelJS.ValueType.Formula) {
+    const result = (cell.model as { result?: unknown }).result;
+    return result === undefined ? null : cellReading(result as ExcelJS.CellValue);
+  }
+  return cellReading(cell.value);
+}
+
 export function cellReading(value: ExcelJS.CellValue): CellReading {
   if (value === null || value === undefined) return null;
   if (typeof value === "number" || typeof value === "string") return value;

@@ -1,0 +1,478 @@
+/**
+ * The portable report, proven in an independent spreadsheet engine: LibreOffice Calc (Debian's
+ * libreoffice-calc-nogui, headless, recalculating every formula on load) opens each workbook
+ * Echolot writes, and every figure it computes is compared with Echolot's own: r_k, pairs, se,
+ * band, z, p per lag, Q, df and p to every lag, n, gaps, mean, c0, the crossing counts and their
+ * binomial chance — numbers to 1e-9 relative, words exactly. Then the data are changed inside the
+ * workbooks (a value, a blank gap, an #N/A gap, a longer column), LibreOffice recalculates, and
+ * the figures are compared with Echolot on the changed data.
+ *
+ * Tolerance 1e-9 relative: the core sums lag products with compensated (Neumaier) summation and
+ * takes p from stdlib's special functions; the spreadsheet adds its SUMPRODUCTs plainly and uses
+ * its own CHISQ.DIST.RT, NORM.S.DIST and BINOM.DIST, and LibreOffice writes 15 significant digits
+ * into xlsx. Plain sums of n ≤ 1,300 terms lose at most about n·2⁻⁵³ ≈ 1e-13 relative to the sum
+ * of magnitudes, so 1e-9 leaves room for the distribution functions' own accuracy while still
+ * catching any wrong formula (an off-by-one lag or a shifted gap moves figures by 1e-3 or more).
+ * A zero is compared exactly.
+ *
+ * All workbooks go through one soffice start (the slow part), so the whole file stays well
+ * under a minute on an idle machine; the timeout allows for a busy one.
+ */
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import ExcelJS from "exceljs";
+import { beforeAll, describe, expect, it } from "vitest";
+import {
+  batchCheck,
+  defaultMaxLag,
+  lagTable,
+  noiseCheck,
+  seriesFromValues,
+  type LagOptions,
+  type Series,
+} from "../../src/core";
+import { portablePlan, type Figure, type PortablePlan } from "../../src/report";
+import { readCsv } from "../../src/cli/csv";
+import { DATA_SHEET, roomToGrow, workbookPlan } from "../../src/cli/workbook";
+import {
+  demoPortablePlans,
+  demoWorkbookBytes,
+  LARKVALE_PORTABLE,
+} from "../../scripts/demoWorkbook";
+import { seededRandom } from "../../src/sim/random";
+import { csvFile, ROOT, runCli } from "../cli/run";
+import { FIXTURES } from "../helpers/fixtures";
+import {
+  convertWithLibreOffice,
+  readCell,
+  readWorkbook,
+  type CellReading,
+} from "../helpers/libreoffice";
+
+const TOLERANCE = 1e-9;
+const LONG_TIMEOUT = 180_000;
+const SERIES_F = join(FIXTURES, "series-f.csv");
+const DEMO = join(ROOT, "demo");
+
+interface Case {
+  readonly name: string;
+  /** The workbook as written (input to LibreOffice). */
+  readonly file: string;
+  /** The plan whose figures the recalculated cells must show. */
+  readonly expected: PortablePlan;
+  /** Held examples: label, n, the add-in's verdict, and where the portable verdict is. */
+  readonly verdicts: readonly HeldVerdict[];
+  recalculated?: ExcelJS.Workbook | undefined;
+}
+
+interface HeldVerdict {
+  readonly example: string;
+  readonly n: number;
+  readonly addIn: string;
+  readonly sheet: string;
+  readonly row: number;
+  readonly column: number;
+}
+
+interface Tally {
+  count: number;
+  largest: number;
+  where: string;
+}
+
+function relativeDifference(reading: number, expected: number): number {
+  if (expected === 0) return Math.abs(reading);
+  return Math.abs(reading - expected) / Math.abs(expected);
+}
+
+/** Every figure of `plan` against the recalculated workbook; failures as readable lines. */
+function compareFigures(plan: PortablePlan, book: ExcelJS.Workbook, tally: Tally): string[] {
+  const problems: string[] = [];
+  for (const sheet of plan.sheets) {
+    const recalculated = book.getWorksheet(sheet.name);
+    if (recalculated === undefined) {
+      problems.push(`no sheet "${sheet.name}"`);
+      continue;
+    }
+    for (const cell of sheet.cells) {
+      if (cell.figure === undefined) continue;
+      const expected = plan.figures.get(cell.figure) as Figure;
+      const reading: CellReading = readCell(recalculated.getCell(cell.row + 1, cell.column + 1));
+      const where = `${sheet.name}!R${cell.row + 1}C${cell.column + 1} (${cell.figure})`;
+      tally.count++;
+      if (typeof expected === "number") {
+        const diff = typeof reading === "number" ? relativeDifference(reading, expected) : Infinity;
+        if (diff > tally.largest) {
+          tally.largest = diff;
+          tally.where = where;
+        }
+        if (!(diff <= TOLERANCE)) {
+          problems.push(
+            `${where}: LibreOffice ${String(reading)}, Echolot ${expected}, relative difference ${diff}, tolerance ${TOLERANCE}`,
+          );
+        }
+      } else if ((reading ?? "") !== expected) {
+        problems.push(`${where}: LibreOffice "${String(reading)}", Echolot "${expected}"`);
+      }
+    }
+  }
+  return problems;
+}
+
+/** A seeded AR(1) series (φ = 0.45) with blank and NA gaps, as CSV text; the gaps as null. */
+function gappySeries(length: number, seed: number): (number | null)[] {
+  const random = seededRandom(seed);
+  const values: (number | null)[] = [];
+  let previous = 0;
+  for (let t = 0; t < length; t++) {
+    previous = 0.45 * previous + random.normal();
+    values.push(Math.round((20 + 3 * previous) * 1e4) / 1e4);
+  }
+  for (const gap of [7, 8, 31, 64, 90]) values[gap] = null;
+  return values;
+}
+
+function csvText(header: string, values: readonly (number | null)[], gapText = ""): string {
+  return `${header}\n${values.map((v, i) => (v === null ? (i % 2 === 0 ? gapText : "") : String(v))).join("\n")}\n`;
+}
+
+/** Echolot's series of a data column as the changed workbook holds it (null for a gap). */
+function seriesOf(values: readonly (number | null)[], label: string): Series {
+  return seriesFromValues([label, ...values]);
+}
+
+/** Reads the first column of the Data sheet as Echolot would (numbers; anything else a gap). */
+function dataColumn(sheet: ExcelJS.Worksheet, column: number, rows: number): (number | null)[] {
+  const values: (number | null)[] = [];
+  for (let r = 2; r <= rows + 1; r++) {
+    const v = sheet.getCell(r, column).value;
+    values.push(typeof v === "number" ? v : null);
+  }
+  while (values.length > 0 && values[values.length - 1] === null) values.pop();
+  return values;
+}
+
+/** A value, a blank gap, an #N/A gap and `extra` more values at the end of a column. */
+function changeColumn(
+  sheet: ExcelJS.Worksheet,
+  column: number,
+  first: number,
+  last: number,
+  extra: readonly number[],
+): void {
+  const middle = Math.floor((first + last) / 2);
+  const original = sheet.getCell(middle, column).value as number;
+  sheet.getCell(middle, column).value = original * 1.5 + 1;
+  sheet.getCell(first + 4, column).value = null;
+  sheet.getCell(last - 6, column).value = { error: "#N/A" } as ExcelJS.CellErrorValue;
+  extra.forEach((v, i) => {
+    sheet.getCell(last + 1 + i, column).value = v;
+  });
+}
+
+function extraValues(count: number, seed: number, scale: number, centre: number): number[] {
+  const random = seededRandom(seed);
+  return Array.from(
+    { length: count },
+    () => Math.round((centre + scale * random.normal()) * 1e4) / 1e4,
+  );
+}
+
+const cases: Case[] = [];
+const tally: Tally = { count: 0, largest: 0, where: "" };
+
+beforeAll(async () => {
+  const dir = mkdtempSync(join(tmpdir(), "echolot-portable-"));
+  const placedOn = "2026-12-02";
+
+  // 1. Series F through the command line, as a user writes it.
+  const fFile = join(dir, "f.xlsx");
+  const written = runCli(["workbook", SERIES_F, "--out", fFile]);
+  expect(written.status, written.stderr).toBe(0);
+  const fTable = readCsv(SERIES_F);
+  const fPlan = workbookPlan(fTable, {}, { batch: false, placedOn });
+  const fSeries = seriesOf(
+    fTable.rows.map((r) => Number(r[0])),
+    "yield",
+  );
+  cases.push({
+    name: "Series F",
+    file: fFile,
+    expected: fPlan,
+    verdicts: [held("Series F", fSeries, {}, "Portable report")],
+  });
+
+  // 2–3. A series with blank and NA gaps, under each band kind and joint test.
+  const gappy = gappySeries(150, 11);
+  const gappyCsv = csvFile("gappy.csv", csvText("level", gappy, "NA"));
+  const gappySeriesValue = seriesOf(gappy, "level");
+  const variants: [string, string[], LagOptions][] = [
+    [
+      "gaps, Bartlett, Box–Pierce, season 12",
+      ["--bands", "bartlett", "--test", "box-pierce", "--season", "12", "--lags", "24"],
+      { bandKind: "bartlett", testKind: "box-pierce", season: 12, maxLag: 24 },
+    ],
+    [
+      "gaps, robust bands and Q*, alpha 0.1",
+      ["--bands", "robust", "--test", "robust", "--alpha", "0.1", "--fitted", "1"],
+      { bandKind: "robust", testKind: "robust", alpha: 0.1, fittedParams: 1 },
+    ],
+  ];
+  variants.forEach(([name, args, options], i) => {
+    const file = join(dir, `gappy-${i}.xlsx`);
+    const result = runCli(["workbook", gappyCsv, ...args, "--out", file]);
+    expect(result.status, result.stderr).toBe(0);
+    cases.push({
+      name,
+      file,
+      expected: workbookPlan(readCsv(gappyCsv), options, { batch: false, placedOn }),
+      verdicts: [held(name, gappySeriesValue, options, "Portable report")],
+    });
+  });
+
+  // 4. A long noise series: 1,200 values, beyond the add-in's exact small-sample range.
+  const noise = extraValues(1200, 29, 1, 0);
+  const noiseCsv = csvFile("noise.csv", csvText("noise", noise));
+  const noiseFile = join(dir, "noise.xlsx");
+  expect(runCli(["workbook", noiseCsv, "--out", noiseFile]).status).toBe(0);
+  cases.push({
+    name: "1,200 values of noise",
+    file: noiseFile,
+    expected: workbookPlan(readCsv(noiseCsv), {}, { batch: false, placedOn }),
+    verdicts: [held("1,200 values of noise", seriesOf(noise, "noise"), {}, "Portable report")],
+  });
+
+  // 5. The demo workbook (a portable batch of 24 blends and the fund's report with its chart).
+  const demoFile = join(dir, "demo.xlsx");
+  writeFileSync(demoFile, await demoWorkbookBytes(DEMO, placedOn));
+  const demoPlans = demoPortablePlans(DEMO, placedOn);
+  cases.push(
+    ...demoPlans.map((d) => ({
+      name: `demo: ${d.name}`,
+      file: demoFile,
+      expected: d.plan,
+      verdicts: demoVerdicts(d.name, d.plan),
+    })),
+  );
+
+  // 6. Changed data: Series F and the gappy Bartlett case, changed in their Data sheets.
+  await changedCase(fFile, join(dir, "f-changed.xlsx"), "Series F, changed", {
+    options: {},
+    maxLag: lagTable(fSeries, {}).maxLag,
+    label: "yield",
+    rows: 70,
+  });
+  const bartlett = variants[0]?.[2] ?? {};
+  await changedCase(
+    join(dir, "gappy-0.xlsx"),
+    join(dir, "gappy-0-changed.xlsx"),
+    "gaps, Bartlett, Box–Pierce, changed",
+    {
+      options: bartlett,
+      maxLag: lagTable(gappySeriesValue, bartlett).maxLag,
+      label: "level",
+      rows: 150,
+    },
+  );
+  await changedDemo(demoFile, join(dir, "demo-changed.xlsx"), placedOn);
+
+  // One LibreOffice start for every file.
+  const files = [...new Set(cases.map((c) => c.file))];
+  const converted = convertWithLibreOffice(files, "xlsx");
+  const books = new Map<string, ExcelJS.Workbook>();
+  for (let i = 0; i < files.length; i++) {
+    books.set(files[i] as string, await readWorkbook(converted[i] as string));
+  }
+  for (const c of cases) c.recalculated = books.get(c.file);
+}, LONG_TIMEOUT);
+
+function held(example: string, series: Series, options: LagOptions, sheet: string): HeldVerdict {
+  const check = noiseCheck(series, options);
+  return { example, n: check.n, addIn: check.verdict.word, sheet, row: 6, column: 1 };
+}
+
+/** The demo's held examples: each blend's summary row, and the fund's report. */
+function demoVerdicts(name: string, plan: PortablePlan): HeldVerdict[] {
+  const found: HeldVerdict[] = [];
+  for (const sheet of plan.sheets) {
+    for (const cell of sheet.cells) {
+      const key = cell.figure ?? "";
+      const isSummary = /^row\d+:verdict$/.test(key);
+      if (!(isSummary || (name === "larkvale" && key === "verdict"))) continue;
+      const nKey = isSummary ? key.replace("verdict", "n") : "n";
+      const label = sheet.cells.find((c) => c.row === cell.row && c.column === 0)?.content;
+      found.push({
+        example: isSummary && label !== undefined && "value" in label ? String(label.value) : name,
+        n: plan.figures.get(nKey) as number,
+        addIn: plan.figures.get(key) as string,
+        sheet: sheet.name,
+        row: cell.row,
+        column: cell.column,
+      });
+    }
+  }
+  return found;
+}
+
+interface Written {
+  readonly options: LagOptions;
+  /** The K written into the report, which a change to the data does not move. */
+  readonly maxLag: number;
+  readonly label: string;
+  readonly rows: number;
+}
+
+async function changedCase(
+  from: string,
+  to: string,
+  name: string,
+  written: Written,
+): Promise<void> {
+  const { options, label, rows } = written;
+  const book = await readWorkbook(from);
+  const data = book.getWorksheet(DATA_SHEET);
+  if (data === undefined) throw new Error("no Data sheet");
+  changeColumn(data, 1, 2, rows + 1, extraValues(25, 5, 10, 50));
+  await book.xlsx.writeFile(to);
+  const series = seriesOf(dataColumn(data, 1, rows + 40), label);
+  const same: LagOptions = { ...options, maxLag: written.maxLag };
+  const table = lagTable(series, same);
+  const plan = portablePlan(
+    table,
+    series,
+    { sheet: DATA_SHEET, column: 0, firstRow: 1, rows: rows + roomToGrow(rows) },
+    { sheetName: "Portable report", placedOn: "2026-12-02" },
+  );
+  cases.push({
+    name,
+    file: to,
+    expected: plan,
+    verdicts: [held(name, series, same, "Portable report")],
+  });
+}
+
+/** The fund's residuals and one blend changed inside the demo workbook. */
+async function changedDemo(from: string, to: string, placedOn: string): Promise<void> {
+  const book = await readWorkbook(from);
+  const fund = book.getWorksheet("Larkvale residuals");
+  const blends = book.getWorksheet("Ternpoint errors");
+  if (fund === undefined || blends === undefined) throw new Error("demo sheets missing");
+  changeColumn(fund, 2, 2, 751, extraValues(60, 17, 0.8, 0));
+  changeColumn(blends, 3, 2, 105, extraValues(30, 23, 40, 0));
+  await book.xlsx.writeFile(to);
+  // The same plans from the changed data, written as CSV files the demo builder reads.
+  const changedDir = mkdtempSync(join(tmpdir(), "echolot-demo-changed-"));
+  for (const [sheet, file, width] of [
+    [blends, "ternpoint-roasters-forecast-errors.csv", 25],
+    [fund, "larkvale-fund-residuals.csv", 2],
+  ] as const) {
+    const lines: string[] = [];
+    const header = readFileSync(join(DEMO, file), "utf8").split("\n")[0] as string;
+    lines.push(header);
+    for (let r = 2; r <= sheet.rowCount; r++) {
+      const cells: string[] = [];
+      for (let c = 1; c <= width; c++) {
+        const v = sheet.getCell(r, c).value;
+        cells.push(typeof v === "number" ? String(v) : typeof v === "string" ? v : "");
+      }
+      if (cells.some((cell) => cell !== "")) lines.push(cells.join(","));
+    }
+    writeFileSync(join(changedDir, file), `${lines.join("\n")}\n`);
+  }
+  // The blends' reports keep the K they were written with (the default for 104 weeks).
+  for (const d of demoPortablePlans(changedDir, placedOn, defaultMaxLag(104, 13))) {
+    cases.push({
+      name: `demo: ${d.name}, changed`,
+      file: to,
+      expected: d.plan,
+      verdicts: demoVerdicts(d.name, d.plan),
+    });
+  }
+}
+
+describe("portable reports recalculated in LibreOffice Calc", () => {
+  it("show Echolot's figures on every written workbook and after each change to the data", () => {
+    const problems: string[] = [];
+    for (const c of cases) {
+      if (c.recalculated === undefined) throw new Error(`${c.name} was not converted`);
+      problems.push(
+        ...compareFigures(c.expected, c.recalculated, tally).map((p) => `${c.name}: ${p}`),
+      );
+    }
+    console.log(
+      `portable report vs Echolot: ${tally.count} figures compared over ${cases.length} reports; largest relative difference ${tally.largest.toExponential(2)} at ${tally.where}`,
+    );
+    expect(problems.slice(0, 20)).toEqual([]);
+    expect(tally.count).toBeGreaterThan(5000);
+  });
+
+  it("gives the add-in's verdict on every held example, and says when the add-in's exact reading may differ", () => {
+    const rows: string[] = [];
+    let agree = 0;
+    let total = 0;
+    for (const c of cases) {
+      const book = c.recalculated as ExcelJS.Workbook;
+      for (const v of c.verdicts) {
+        const sheet = book.getWorksheet(v.sheet) as ExcelJS.Worksheet;
+        const portable = readCell(sheet.getCell(v.row + 1, v.column + 1));
+        total++;
+        if (portable === v.addIn) agree++;
+        rows.push(
+          `${c.name} / ${v.example}: n ${v.n}, add-in ${v.addIn}, portable ${String(portable)}`,
+        );
+        expect(portable, `${c.name} / ${v.example}`).toBe(v.addIn);
+      }
+    }
+    console.log(`verdicts: ${agree} of ${total} held examples agree\n${rows.join("\n")}`);
+    // The line beside the verdict: under 1,000 values the add-in's exact reading may differ.
+    const line = (name: string) => {
+      const c = cases.find((x) => x.name === name) as Case;
+      const sheet = c.recalculated?.getWorksheet("Portable report") as ExcelJS.Worksheet;
+      return String(readCell(sheet.getCell(8, 2)));
+    };
+    expect(line("Series F")).toContain("may differ");
+    expect(line("1,200 values of noise")).toContain("as the add-in reads it");
+    const fund = cases.find((x) => x.name === "demo: larkvale")?.recalculated;
+    expect(String(readCell(fund?.getWorksheet(LARKVALE_PORTABLE)?.getCell(8, 2)))).toContain(
+      "may differ",
+    );
+  });
+
+  it("matches what `echolot check` and `echolot batch` print for Series F and the demo blends", () => {
+    const check = JSON.parse(runCli(["check", SERIES_F, "--json"]).stdout) as {
+      joint: { q: number; df: number; p: number };
+      verdict: { word: string };
+    };
+    const f = cases
+      .find((c) => c.name === "Series F")
+      ?.recalculated?.getWorksheet("Portable report");
+    const at = (row: number) => readCell(f?.getCell(row, 2));
+    expect(relativeDifference(at(24) as number, check.joint.q)).toBeLessThanOrEqual(TOLERANCE);
+    expect(at(25)).toBe(check.joint.df);
+    expect(relativeDifference(at(26) as number, check.joint.p)).toBeLessThanOrEqual(TOLERANCE);
+    expect(at(7)).toBe(check.verdict.word);
+
+    const blends = readCsv(join(DEMO, "ternpoint-roasters-forecast-errors.csv"));
+    const columns = blends.headers
+      .slice(1)
+      .map((h, i) =>
+        seriesFromValues([
+          h,
+          ...blends.rows.map((r) => (r[i + 1] === "" ? null : Number(r[i + 1]))),
+        ]),
+      );
+    const batch = batchCheck(columns, { season: 13 });
+    const summary = cases
+      .find((c) => c.name === "demo: ternpoint")
+      ?.recalculated?.getWorksheet("Ternpoint portable");
+    batch.rows.forEach((row, i) => {
+      const cell = (column: number) => readCell(summary?.getCell(7 + i, column));
+      expect(cell(1), `row ${i}`).toBe(row.label);
+      expect(relativeDifference(cell(3) as number, row.q)).toBeLessThanOrEqual(TOLERANCE);
+      expect(cell(4)).toBe(row.df);
+      expect(relativeDifference(cell(5) as number, row.p)).toBeLessThanOrEqual(TOLERANCE);
+      expect(cell(6)).toBe(row.verdict);
+    });
+  });
+});
