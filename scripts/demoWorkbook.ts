@@ -330,16 +330,8 @@ export function demoPortablePlans(
   const ldata = larkvale.sheet.data;
   const fundOptions: LagOptions = { maxLag: LARKVALE_LAGS };
   const fund = scenarioSeries(ldata, 1);
+  // The fund's report first: its sheet, with the chart, is the one a reader opens first.
   return [
-    {
-      name: "ternpoint",
-      plan: portableBatchPlan(items, {
-        summarySheet: TERNPOINT_PORTABLE,
-        workSheet: TERNPOINT_WORK,
-        placedOn,
-      }),
-      options: blendOptions,
-    },
     {
       name: "larkvale",
       plan: portablePlan(
@@ -349,6 +341,15 @@ export function demoPortablePlans(
         { sheetName: LARKVALE_PORTABLE, placedOn },
       ),
       options: fundOptions,
+    },
+    {
+      name: "ternpoint",
+      plan: portableBatchPlan(items, {
+        summarySheet: TERNPOINT_PORTABLE,
+        workSheet: TERNPOINT_WORK,
+        placedOn,
+      }),
+      options: blendOptions,
     },
   ];
 }

@@ -9,6 +9,7 @@ import type ExcelJS from "exceljs";
 import JSZip from "jszip";
 import {
   chartPartXml,
+  columnLetters,
   drawingPartXml,
   fileFormula,
   type PortableChart,
@@ -46,6 +47,16 @@ export function addPortableSheets(workbook: ExcelJS.Workbook, plan: PortablePlan
           : cell.content.value;
       if (cell.format !== undefined) target.numFmt = cell.format;
       if (cell.style !== undefined) target.font = FONTS[cell.style];
+    }
+    if (sheetPlan.print !== undefined) {
+      sheet.pageSetup = {
+        ...sheet.pageSetup,
+        orientation: "landscape",
+        fitToPage: true,
+        fitToWidth: 1,
+        fitToHeight: 0,
+        printArea: `A1:${columnLetters(sheetPlan.print.columns - 1)}${sheetPlan.print.rows}`,
+      };
     }
     if (sheetPlan.chart !== undefined)
       charts.push({ sheet: sheetPlan.name, chart: sheetPlan.chart });
@@ -114,6 +125,12 @@ export async function withCharts(
   charts: readonly PlacedChart[],
 ): Promise<Buffer> {
   const zip = await JSZip.loadAsync(bytes);
+  // exceljs writes a print area as $A1:$N78; LibreOffice ignores that form, so make it $A$1:$N$78.
+  const workbookXml = await readPart(zip, "xl/workbook.xml");
+  zip.file(
+    "xl/workbook.xml",
+    workbookXml.replace(/(!\$[A-Z]+)(\d+):(\$[A-Z]+)(\d+)</g, "$1$$$2:$3$$$4<"),
+  );
   if (charts.length > 0) {
     const parts = await sheetParts(zip);
     let types = await readPart(zip, "[Content_Types].xml");

@@ -117,6 +117,7 @@ export function portableBatchPlan(
         name: options.summarySheet,
         cells: summary,
         extent: { rows: FIRST_ROW + items.length, columns: HEADERS.length },
+        print: { rows: FIRST_ROW + items.length, columns: HEADERS.length },
         widths: [
           { column: 0, width: 28 },
           { column: 6, width: 50 },

@@ -71,7 +71,7 @@ export function chartPartXml(sheet: string, chart: PortableChart): string {
     `<c:lineChart><c:grouping val="standard"/><c:varyColors val="0"/>${lines.join("")}<c:marker val="1"/>${axes}</c:lineChart>`,
     `<c:catAx><c:axId val="${CATEGORY_AXIS}"/><c:scaling><c:orientation val="minMax"/></c:scaling><c:delete val="0"/><c:axPos val="b"/>`,
     `<c:title>${rich(chart.xTitle, 1000, false)}</c:title><c:numFmt formatCode="0" sourceLinked="0"/>`,
-    `<c:majorTickMark val="out"/><c:minorTickMark val="none"/><c:tickLblPos val="low"/>${axisLine}${ticks}`,
+    `<c:majorTickMark val="none"/><c:minorTickMark val="none"/><c:tickLblPos val="low"/><c:spPr><a:ln><a:noFill/></a:ln></c:spPr>${ticks}`,
     `<c:crossAx val="${VALUE_AXIS}"/><c:crosses val="autoZero"/><c:auto val="1"/><c:lblAlgn val="ctr"/><c:lblOffset val="100"/><c:noMultiLvlLbl val="0"/></c:catAx>`,
     `<c:valAx><c:axId val="${VALUE_AXIS}"/><c:scaling><c:orientation val="minMax"/></c:scaling><c:delete val="0"/><c:axPos val="l"/>`,
     `<c:title>${rich(chart.yTitle, 1000, false, true)}</c:title><c:numFmt formatCode="0" sourceLinked="0"/>`,

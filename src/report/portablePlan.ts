@@ -85,6 +85,8 @@ export interface PortableSheet {
   readonly extent: { readonly rows: number; readonly columns: number };
   readonly widths: readonly { readonly column: number; readonly width: number }[];
   readonly chart?: PortableChart;
+  /** What a printout shows (rows × columns from A1): the report and its chart, not the helpers. */
+  readonly print?: { readonly rows: number; readonly columns: number };
 }
 
 export type Figure = number | string;
@@ -301,25 +303,29 @@ export function portablePlan(
     diamonds("between the corridors", column(COL.between), PALETTE.watch),
     diamonds("beyond the all-lags corridor", column(COL.beyond), PALETTE.structure),
   ];
-  const chartTop = first + K + 1;
+  // The chart sits beside the figures list, in the columns the lag table uses below it.
+  const chartTop = origin.row + ROW.figures;
+  const tableEnd = first + K;
   const chart: PortableChart = {
     title: `z by lag: ${table.label === "" ? "series" : table.label}`,
     categories: column(COL.lag),
     series: series_,
     xTitle: "lag",
     yTitle: `z = r / se (beyond ±${PIN} drawn at the edge)`,
-    from: { row: chartTop, column: origin.column },
-    to: { row: chartTop + 20, column: origin.column + 9 },
+    from: { row: chartTop, column: origin.column + 3 },
+    to: { row: chartTop + FIGURE_ROWS.length, column: origin.column + COL.pmf },
   };
   const sheet: PortableSheet = {
     name: options.sheetName,
     cells,
     extent: {
-      rows: Math.max(first + source.rows, options.chart === false ? chartTop : chartTop + 21),
+      rows: Math.max(first + source.rows, tableEnd),
       columns: origin.column + PORTABLE_BLOCK_WIDTH,
     },
     widths: blockWidths(origin.column),
-    ...(options.chart === false ? {} : { chart }),
+    ...(options.chart === false
+      ? {}
+      : { chart, print: { rows: tableEnd, columns: origin.column + COL.pmf + 1 } }),
   };
   return { sheets: [sheet], figures };
 }
