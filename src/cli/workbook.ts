@@ -61,6 +61,7 @@ export function workbookPlan(
     return portablePlan(result, series, sourceOf(table, column), {
       sheetName: "Portable report",
       placedOn: choice.placedOn,
+      roomToGrow: true,
     });
   }
   const items: PortableBatchItem[] = [];
@@ -81,6 +82,7 @@ export function workbookPlan(
     summarySheet: "Portable batch",
     workSheet: "Portable work",
     placedOn: choice.placedOn,
+    roomToGrow: true,
   });
 }
 

@@ -31,6 +31,8 @@ export interface PortableBatchOptions {
   readonly summarySheet: string;
   readonly workSheet: string;
   readonly placedOn: string;
+  /** Whether the source ranges run past the data (see PortableOptions). */
+  readonly roomToGrow: boolean;
 }
 
 const HEADERS = ["series", "n", "Q", "df", "p (χ²)", "verdict", "note"] as const;
@@ -79,7 +81,14 @@ export function portableBatchPlan(
         table,
         series,
         item.source,
-        { sheetName: options.workSheet, placedOn: options.placedOn, origin, chart: false, key },
+        {
+          sheetName: options.workSheet,
+          placedOn: options.placedOn,
+          origin,
+          chart: false,
+          key,
+          roomToGrow: options.roomToGrow,
+        },
         figures,
       ),
     );

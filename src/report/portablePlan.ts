@@ -108,6 +108,8 @@ export interface PortableOptions {
   readonly chart?: boolean;
   /** Prefix of the figure keys (several reports in one plan). */
   readonly key?: string;
+  /** Whether the source range runs past the data, so values added below are included. */
+  readonly roomToGrow?: boolean;
 }
 
 /** Below this many values the add-in may read the joint test from an exact small-sample reference. */
@@ -417,13 +419,13 @@ export function portableBlock(
   text(
     ROW.computes,
     0,
-    `Lag correlations of ${src} over the pairs where both values exist, their bands, the ${TEST_NAMES[table.testKind]} joint test over ${K} lags with its χ² p, the two corridors, the count of crossings against chance, and the verdict.`,
+    `Lag correlations of ${src} over the pairs where both values exist (a blank, #N/A or text cell is a gap), their bands, the ${TEST_NAMES[table.testKind]} joint test over ${K} lags with its χ² p, the two corridors, the count of crossings against chance, and the verdict.`,
     "note",
   );
   text(
     ROW.live,
     0,
-    "Written in the spreadsheet's own functions: it recomputes when the data change, with or without the Echolot add-in, in Excel, LibreOffice Calc or Google Sheets. Room to grow: values added further down the data range are included.",
+    `Written in the spreadsheet's own functions: it recomputes when the data change, with or without the Echolot add-in, in Excel, LibreOffice Calc or Google Sheets. ${options.roomToGrow === true ? "The data range runs past the last value: values added below it are included." : "It reads exactly the cells of the data range: to cover more rows, place a new report."}`,
     "note",
   );
   text(ROW.caution, 0, SCREENING_CAUTION, "note");

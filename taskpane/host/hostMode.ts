@@ -9,6 +9,7 @@ import type { PaneController } from "../pane/controller";
 import { showMessage, type PaneElements } from "../pane/view";
 import { absoluteReference, columnReferences } from "./address";
 import { HostError, hostRun, type ExcelRun } from "./excel";
+import { installPortableAction } from "./placePortable";
 import { placeReport } from "./placeReport";
 import type { RangeRead } from "./readRange";
 import { HostSession } from "./session";
@@ -162,6 +163,7 @@ export async function startHost(
   };
   el.placeLive.addEventListener("click", () => void place("live"));
   el.placeSnapshot.addEventListener("click", () => void place("snapshot"));
+  installPortableAction(el, pane, run);
 
   await session.start();
 }

@@ -342,7 +342,7 @@ async function changedCase(
     table,
     series,
     { sheet: DATA_SHEET, column: 0, firstRow: 1, rows: rows + roomToGrow(rows) },
-    { sheetName: "Portable report", placedOn: "2026-12-02" },
+    { sheetName: "Portable report", placedOn: "2026-12-02", roomToGrow: true },
   );
   cases.push({
     name,
