@@ -47,6 +47,7 @@ import {
   convertWithLibreOffice,
   readCell,
   readWorkbook,
+  soffice,
   type CellReading,
 } from "../helpers/libreoffice";
 
@@ -183,6 +184,7 @@ const cases: Case[] = [];
 const tally: Tally = { count: 0, largest: 0, where: "" };
 
 beforeAll(async () => {
+  soffice(); // fails at once, with the install hint, where LibreOffice is missing
   const dir = mkdtempSync(join(tmpdir(), "echolot-portable-"));
   const placedOn = "2026-12-02";
 
