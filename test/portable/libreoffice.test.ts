@@ -88,7 +88,12 @@ function relativeDifference(reading: number, expected: number): number {
 }
 
 /** Every figure of `plan` against the recalculated workbook; failures as readable lines. */
-function compareFigures(plan: PortablePlan, book: ExcelJS.Workbook, tally: Tally): string[] {
+function compareFigures(
+  name: string,
+  plan: PortablePlan,
+  book: ExcelJS.Workbook,
+  tally: Tally,
+): string[] {
   const problems: string[] = [];
   for (const sheet of plan.sheets) {
     const recalculated = book.getWorksheet(sheet.name);
@@ -106,7 +111,7 @@ function compareFigures(plan: PortablePlan, book: ExcelJS.Workbook, tally: Tally
         const diff = typeof reading === "number" ? relativeDifference(reading, expected) : Infinity;
         if (diff > tally.largest) {
           tally.largest = diff;
-          tally.where = where;
+          tally.where = `${name}: ${where}`;
         }
         if (!(diff <= TOLERANCE)) {
           problems.push(
@@ -203,6 +208,16 @@ beforeAll(async () => {
     file: fFile,
     expected: fPlan,
     verdicts: [held("Series F", fSeries, {}, "Portable report")],
+  });
+
+  // Series F judged over 20 lags: more than n/4, so `short`.
+  const shortFile = join(dir, "f-short.xlsx");
+  expect(runCli(["workbook", SERIES_F, "--lags", "20", "--out", shortFile]).status).toBe(0);
+  cases.push({
+    name: "Series F over 20 lags",
+    file: shortFile,
+    expected: workbookPlan(fTable, { maxLag: 20 }, { batch: false, placedOn }),
+    verdicts: [held("Series F over 20 lags", fSeries, { maxLag: 20 }, "Portable report")],
   });
 
   // 2–3. A series with blank and NA gaps, under each band kind and joint test.
@@ -399,7 +414,7 @@ describe("portable reports recalculated in LibreOffice Calc", () => {
     for (const c of cases) {
       if (c.recalculated === undefined) throw new Error(`${c.name} was not converted`);
       problems.push(
-        ...compareFigures(c.expected, c.recalculated, tally).map((p) => `${c.name}: ${p}`),
+        ...compareFigures(c.name, c.expected, c.recalculated, tally).map((p) => `${c.name}: ${p}`),
       );
     }
     console.log(
