@@ -13,6 +13,7 @@ export * from "./lagTableHeader";
 export * from "./placedReport";
 export * from "./seriesReport";
 export * from "./portableFormulas";
+export * from "./portableTypes";
 export * from "./portablePlan";
 export * from "./portableBatch";
 export * from "./portableChartXml";

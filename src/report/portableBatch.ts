@@ -6,17 +6,14 @@
  */
 import type { LagTable, Series } from "../core";
 import { absoluteCell, textLiteral } from "./portableFormulas";
+import { portableBlock } from "./portableBlock";
 import {
   EXACT_REFERENCE_BELOW,
   PORTABLE_BLOCK_WIDTH,
   PORTABLE_FORMATS,
-  portableBlock,
   portableBlockCells,
-  type Figure,
-  type PortableCell,
-  type PortablePlan,
-  type PortableSource,
-} from "./portablePlan";
+} from "./portableLayout";
+import type { Figure, PortableCell, PortablePlan, PortableSource } from "./portableTypes";
 import { SCREENING_CAUTION } from "./verdictBadge";
 
 /** One column of the batch: its label and source, and Echolot's table or why there is none. */

@@ -9,7 +9,8 @@
  */
 import { escapeMarkup } from "./escape";
 import { PALETTE } from "./palette";
-import { columnRange, type PortableChart, type PortableColumn } from "./portablePlan";
+import { columnRange } from "./portableFormulas";
+import type { PortableChart, PortableColumn } from "./portableTypes";
 
 const NS_C = "http://schemas.openxmlformats.org/drawingml/2006/chart";
 const NS_A = "http://schemas.openxmlformats.org/drawingml/2006/main";

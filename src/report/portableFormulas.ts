@@ -10,6 +10,7 @@
  * and the file writer adds the prefix with `fileFormula`.
  */
 import { columnLetters } from "./placedReport";
+import type { PortableColumn } from "./portableTypes";
 
 /** Functions the portable report may use; those marked `future` need `_xlfn.` in a file. */
 export const NATIVE_FUNCTIONS: Readonly<Record<string, { readonly future: boolean }>> = {
@@ -89,4 +90,9 @@ export function absoluteColumn(row: number, column: number, rows: number, sheet?
 /** A formula string literal: the text in double quotes, inner quotes doubled. */
 export function textLiteral(text: string): string {
   return `"${text.replace(/"/g, '""')}"`;
+}
+
+/** The sheet-qualified A1 range of a plan column, for a chart or a writer. */
+export function columnRange(sheet: string, c: PortableColumn): string {
+  return `${quotedSheet(sheet)}!${absoluteColumn(c.row, c.column, c.rows)}`;
 }
