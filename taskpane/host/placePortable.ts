@@ -11,6 +11,7 @@ import {
   absoluteColumn,
   portablePlan,
   uniqueSheetName,
+  type PortableCell,
   type PortableChart,
   type PortableColumn,
   type PortablePlan,
@@ -76,15 +77,25 @@ export async function placePortable(run: ExcelRun, plan: PortablePlan): Promise<
         `the new sheet "${name}" already holds data; nothing was written. Remove or rename that sheet, then place the report again`,
       );
     }
-    for (const cell of report.cells) {
-      const target = sheet.getRangeByIndexes(cell.row, cell.column, 1, 1);
-      if ("formula" in cell.content) target.formulas = [[cell.content.formula]];
-      else {
-        const value = cell.content.value;
-        target.values = [[typeof value === "string" ? literalText(value) : value]];
+    // Column by column, in runs of consecutive rows: one request per run rather than per cell,
+    // and a sync every so often, so a long column stays within the host's request size.
+    let pending = 0;
+    for (const run of columnRuns(report.cells)) {
+      const target = sheet.getRangeByIndexes(run[0]?.row ?? 0, run[0]?.column ?? 0, run.length, 1);
+      target.formulas = run.map((cell) => [cellInput(cell)]);
+      if (run.some((cell) => cell.format !== undefined)) {
+        target.numberFormat = run.map((cell) => [cell.format ?? "General"]);
       }
-      if (cell.format !== undefined) target.numberFormat = [[cell.format]];
-      if (cell.style !== undefined) Object.assign(target.format.font, FONTS[cell.style]);
+      for (const cell of run) {
+        if (cell.style === undefined) continue;
+        const font = sheet.getRangeByIndexes(cell.row, cell.column, 1, 1).format.font;
+        Object.assign(font, FONTS[cell.style]);
+      }
+      pending += run.length;
+      if (pending >= CELLS_PER_SYNC) {
+        await context.sync();
+        pending = 0;
+      }
     }
     for (const { column, width } of report.widths) {
       // Excel measures column widths in points; a character is about 7 points wide.
@@ -95,6 +106,33 @@ export async function placePortable(run: ExcelRun, plan: PortablePlan): Promise<
     await context.sync();
     return { sheetName: name, cellsWritten: report.cells.length };
   });
+}
+
+/** Cells written before each sync: well under the host's 5 MB request limit. */
+const CELLS_PER_SYNC = 20_000;
+
+/** What a cell is given through `range.formulas`: a formula, a number, or literal text. */
+function cellInput(cell: PortableCell): string | number {
+  if ("formula" in cell.content) return cell.content.formula;
+  const value = cell.content.value;
+  return typeof value === "string" ? literalText(value) : value;
+}
+
+/** The cells grouped by column into runs of consecutive rows, in column then row order. */
+function columnRuns(cells: readonly PortableCell[]): PortableCell[][] {
+  const sorted = [...cells].sort((a, b) => a.column - b.column || a.row - b.row);
+  const runs: PortableCell[][] = [];
+  let run: PortableCell[] = [];
+  for (const cell of sorted) {
+    const last = run[run.length - 1];
+    if (last !== undefined && (last.column !== cell.column || last.row + 1 !== cell.row)) {
+      runs.push(run);
+      run = [];
+    }
+    run.push(cell);
+  }
+  if (run.length > 0) runs.push(run);
+  return runs;
 }
 
 function local(column: PortableColumn): string {

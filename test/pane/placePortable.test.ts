@@ -146,6 +146,27 @@ describe("placePortable(run, portablePlan(...))", () => {
     expect(chart.seriesList.slice(4).every((s) => s.format.line.lineStyle === "None")).toBe(true);
   });
 
+  it("writes a long column in runs with a sync every 20,000 cells, within the host's request size", async () => {
+    const host = new FakeExcel("Long");
+    const values = Array.from({ length: 12_000 }, (_, t) => Math.sin(t * 0.7) + (t % 5));
+    host.sheet("Long").fill(
+      "B1",
+      values.map((v) => [v]),
+    );
+    const series = seriesFromCells(values.map((v) => [v]));
+    const plan = portablePlan(lagTable(series, {}), series, portableSource("Long!$B$1:$B$12000"), {
+      sheetName: "long portable",
+      placedOn: "2026-12-02",
+    });
+    const syncsBefore = host.syncs;
+    const placed = await placePortable(host.run, plan);
+    expect(placed.cellsWritten).toBeGreaterThan(6 * 12_000);
+    // Three syncs of its own (names, emptiness check, last) and at least three in between.
+    expect(host.syncs - syncsBefore).toBeGreaterThanOrEqual(6);
+    const sheet = host.sheet("Echolot long portable");
+    expect(sheet.get(36 + 11_999, 23).formula).toBe("=IF(ISNUMBER('Long'!$B$12000),1,0)");
+  });
+
   it("refuses a plan of several sheets (a batch is the command line's)", async () => {
     const { host, plan } = await seriesFPlan();
     const [sheet] = plan.sheets;
