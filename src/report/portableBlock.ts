@@ -131,15 +131,15 @@ export function portableBlock(
   );
   figure("mean", { formula: `=SUM(${helpColumn(HELP.value)})/${n}` }, table.mean);
   figure("c0", { formula: `=SUMSQ(${helpColumn(HELP.deviation)})` }, table.variance * table.n);
-  figure("maxLag", { value: K }, undefined);
-  figure("alpha", { value: table.alpha }, undefined);
+  figure("maxLag", { value: K }, K);
+  figure("alpha", { value: table.alpha }, table.alpha);
   figure("season", { value: table.season ?? "none" }, undefined);
   figure("fittedParams", { value: table.fittedParams }, undefined);
   figure("bandKind", { value: table.bandKind }, undefined);
   figure("testKind", { value: TEST_NAMES[table.testKind] }, undefined);
-  figure("innerLevel", { value: table.innerLevel }, undefined, PORTABLE_FORMATS.fixed);
-  figure("outerLevel", { value: table.outerLevel }, undefined, PORTABLE_FORMATS.fixed);
-  figure("jointLevel", { value: table.jointLevel }, undefined, PORTABLE_FORMATS.fixed);
+  figure("innerLevel", { value: table.innerLevel }, table.innerLevel, PORTABLE_FORMATS.fixed);
+  figure("outerLevel", { value: table.outerLevel }, table.outerLevel, PORTABLE_FORMATS.fixed);
+  figure("jointLevel", { value: table.jointLevel }, table.jointLevel, PORTABLE_FORMATS.fixed);
   const lastLag = firstLagRow + K - 1;
   figure(
     "Q",
