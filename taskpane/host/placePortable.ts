@@ -118,14 +118,18 @@ function cellInput(cell: PortableCell): string | number {
   return typeof value === "string" ? literalText(value) : value;
 }
 
-/** The cells grouped by column into runs of consecutive rows, in column then row order. */
+/**
+ * The cells grouped by column into runs of consecutive rows (at most CELLS_PER_SYNC each), in
+ * column then row order.
+ */
 function columnRuns(cells: readonly PortableCell[]): PortableCell[][] {
   const sorted = [...cells].sort((a, b) => a.column - b.column || a.row - b.row);
   const runs: PortableCell[][] = [];
   let run: PortableCell[] = [];
   for (const cell of sorted) {
     const last = run[run.length - 1];
-    if (last !== undefined && (last.column !== cell.column || last.row + 1 !== cell.row)) {
+    const apart = last !== undefined && (last.column !== cell.column || last.row + 1 !== cell.row);
+    if (apart || run.length >= CELLS_PER_SYNC) {
       runs.push(run);
       run = [];
     }
