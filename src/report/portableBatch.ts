@@ -73,22 +73,21 @@ export function portableBatchPlan(
     const origin = { row: 0, column: block * PORTABLE_BLOCK_WIDTH };
     block++;
     const key = `b${i}:`;
-    work.push(
-      ...portableBlock(
-        table,
-        series,
-        item.source,
-        {
-          sheetName: options.workSheet,
-          placedOn: options.placedOn,
-          origin,
-          chart: false,
-          key,
-          roomToGrow: options.roomToGrow,
-        },
-        figures,
-      ),
+    const cells = portableBlock(
+      table,
+      series,
+      item.source,
+      {
+        sheetName: options.workSheet,
+        placedOn: options.placedOn,
+        origin,
+        chart: false,
+        key,
+        roomToGrow: options.roomToGrow,
+      },
+      figures,
     );
+    for (const cell of cells) work.push(cell);
     const at = portableBlockCells(options.workSheet, origin);
     const link = (column: number, ref: string, name: string, format?: string) => {
       summary.push({

@@ -438,9 +438,9 @@ describe("portable reports recalculated in LibreOffice Calc", () => {
     const problems: string[] = [];
     for (const c of cases) {
       if (c.recalculated === undefined) throw new Error(`${c.name} was not converted`);
-      problems.push(
-        ...compareFigures(c.name, c.expected, c.recalculated, tally).map((p) => `${c.name}: ${p}`),
-      );
+      for (const p of compareFigures(c.name, c.expected, c.recalculated, tally)) {
+        problems.push(`${c.name}: ${p}`);
+      }
     }
     console.log(
       `portable report vs Echolot: ${tally.count} figures compared over ${cases.length} reports; largest relative difference ${tally.largest.toExponential(2)} at ${tally.where}`,
