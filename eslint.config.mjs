@@ -11,6 +11,23 @@ export default tseslint.config(
     rules: {
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_" }],
       eqeqeq: ["error", "always"],
+      // A spread passes every element as an argument: past about 100,000 elements (a whole-column
+      // range, a long file) the call overflows the stack. Loop or reduce instead.
+      "no-restricted-syntax": [
+        "error",
+        {
+          selector:
+            "CallExpression[callee.object.name='Math'][callee.property.name=/^(max|min|hypot)$/] > SpreadElement",
+          message:
+            "Math.max/min(...array) overflows the stack on large arrays; use a loop or reduce.",
+        },
+        {
+          selector:
+            "CallExpression[callee.property.name=/^(push|unshift|fromCharCode)$/] > SpreadElement",
+          message:
+            "push/unshift/fromCharCode(...array) overflows the stack on large arrays; use a loop.",
+        },
+      ],
     },
   },
   {

@@ -1,14 +1,17 @@
 /**
  * Builds the add-in into dist/: the functions bundle, functions.json (from the JSDoc of
- * functions/functions.ts, plus the allowErrorForDataTypeAny flag), taskpane.html with its bundle,
- * the manifest and icons, and — unless OFFICE_JS=cdn — a local copy of office.js.
+ * functions/functions.ts, plus the allowErrorForDataTypeAny flag), taskpane.html with its bundle
+ * and its Content-Security-Policy (scripts/content-policy.cjs), the manifest, icons and the
+ * functions' help pages, and — in a local build — a copy of office.js.
  *
  * One page, one runtime: taskpane.html loads office.js, then both bundles, so the pane and the cell
  * functions share a runtime (the manifest's SharedRuntime).
  *
- *   npm run build              production build, office.js from the local copy (offline, tests)
- *   OFFICE_JS=cdn npm run build   store build: office.js from the official CDN, no local copy
- *   npm start                  dev server, https on port 3000 (http on 127.0.0.1 as a fallback)
+ * Where office.js comes from is the build switch `--env officeJs=cdn|local` (or OFFICE_JS=…):
+ *   npm run build         production build for publishing: office.js from its CDN
+ *   npm run build:local   production build with the local copy: tests, offline use
+ *   npm start             dev server with the local copy, https on port 3000 (http on 127.0.0.1
+ *                         as a fallback)
  */
 /* eslint-disable @typescript-eslint/no-require-imports -- a CommonJS file, loaded by webpack-cli */
 const path = require("node:path");
@@ -16,11 +19,11 @@ const CopyWebpackPlugin = require("copy-webpack-plugin");
 const HtmlWebpackPlugin = require("html-webpack-plugin");
 const CustomFunctionsMetadataPlugin = require("custom-functions-metadata-plugin");
 const { AllowErrorCellsPlugin } = require("./scripts/allow-error-cells-plugin.cjs");
+const { HelpPagesPlugin } = require("./scripts/help-pages-plugin.cjs");
 const { devCertificates } = require("./scripts/dev-certs.cjs");
+const { contentPolicy, officeJsUrl } = require("./scripts/content-policy.cjs");
 
 const PORT = 3000;
-const OFFICE_JS_CDN = "https://appsforoffice.microsoft.com/lib/1/hosted/office.js";
-const OFFICE_JS_LOCAL = "office-js/office.js";
 
 /** Files copied as they are, each named exactly (a wildcard at the root makes watch loop). */
 function copyPatterns(useCdn) {
@@ -72,7 +75,9 @@ function printHowToLoad(certificates) {
   } else {
     lines.push(
       `Echolot is served at https://localhost:${PORT}/ (manifest: https://localhost:${PORT}/manifest.xml).`,
-      `The certificate is signed by a local development CA: ${certificates.caPath}`,
+      certificates.reused
+        ? `Reusing the development CA ${certificates.caPath}: still valid for ${certificates.daysLeft} days. If you trusted it before, nothing to do.`
+        : `Made a new development CA, valid for ${certificates.daysLeft} days: ${certificates.caPath}`,
       "Trust it once on the machine that runs the spreadsheet host, for example:",
       "  Debian/Ubuntu: cp <ca.crt> /usr/local/share/ca-certificates/office-addin-dev-ca.crt && update-ca-certificates",
       "  macOS:         security add-trusted-cert -d -r trustRoot -k ~/Library/Keychains/login.keychain-db <ca.crt>",
@@ -92,9 +97,19 @@ function printHowToLoad(certificates) {
   console.log(lines.join("\n"));
 }
 
+/** "cdn" or "local": the --env switch, else OFFICE_JS, else the CDN for production only. */
+function officeJsSource(env, production) {
+  const chosen = env.officeJs ?? process.env.OFFICE_JS ?? (production ? "cdn" : "local");
+  if (chosen !== "cdn" && chosen !== "local") {
+    throw new Error(`officeJs must be "cdn" or "local" (got "${chosen}")`);
+  }
+  return chosen;
+}
+
 module.exports = async (env, argv) => {
   const production = argv.mode === "production";
-  const useCdn = process.env.OFFICE_JS === "cdn";
+  const officeJs = officeJsSource(env ?? {}, production);
+  const useCdn = officeJs === "cdn";
   const serving = Boolean(process.env.WEBPACK_SERVE);
   return {
     mode: production ? "production" : "development",
@@ -130,14 +145,14 @@ module.exports = async (env, argv) => {
         input: "./functions/functions.ts",
       }),
       new AllowErrorCellsPlugin({ file: "functions.json" }),
+      new HelpPagesPlugin({ metadata: "functions.json", help: "functions/help.json" }),
       new HtmlWebpackPlugin({
         filename: "taskpane.html",
         template: "./taskpane/taskpane.html",
         chunks: ["functions", "taskpane"],
         chunksSortMode: "manual",
-        officeJs: useCdn ? OFFICE_JS_CDN : OFFICE_JS_LOCAL,
-        // The page's Content-Security-Policy: scripts from this origin (and the CDN in a store build).
-        scriptSources: useCdn ? `'self' ${new URL(OFFICE_JS_CDN).origin}` : "'self'",
+        officeJs: officeJsUrl(officeJs),
+        contentPolicy: contentPolicy(officeJs),
       }),
       new CopyWebpackPlugin({ patterns: copyPatterns(useCdn) }),
     ],

@@ -4,7 +4,9 @@
  */
 import {
   autocorrelation,
+  baseDrawCount,
   centre,
+  noiseCheck,
   directLagProductSums,
   FFT_STEP_COST,
   lagSumCosts,
@@ -91,7 +93,23 @@ export function cellsCase(series: Series): CaseResult {
   });
 }
 
-/** The block check's core on 2,000 series of 260 values, K = 26, against the summed floors. */
+/**
+ * The floor of a calibrated verdict: the lag dot-products once for the observed series and once
+ * for each of the B permutation draws (B = 499 at alpha 5%), the least arithmetic any reference
+ * drawn from the data needs.
+ */
+function calibratedFloor(d: Float64Array, k: number): number {
+  let sink = 0;
+  const draws = baseDrawCount(0.05) + 1;
+  for (let b = 0; b < draws; b++) sink += floorLagDotProducts(d, k)[k] as number;
+  return sink;
+}
+
+/**
+ * The block check's core on 2,000 series of 260 values, K = 26, season 13: each series'
+ * calibrated verdict (500 permutation arrangements) and Benjamini–Hochberg across them, against
+ * the summed calibrated floors.
+ */
 export function batchCase(): CaseResult {
   const count = 2000;
   const length = 260;
@@ -100,8 +118,9 @@ export function batchCase(): CaseResult {
   const deviations = block.map((s) => centre(s).deviations);
   const timing = interleaved(
     () => batchCore(block, { maxLag: k, season: 13 }),
-    () => deviations.map((d) => floorLagDotProducts(d, k)),
-    15,
+    () => deviations.map((d) => calibratedFloor(d, k)),
+    3,
+    1,
   );
   return judged({
     name: "batch-2000x260-k26",
@@ -111,8 +130,32 @@ export function batchCase(): CaseResult {
     floorMs: timing.floorMs,
     ratio: timing.caseMs / timing.floorMs,
     target: 2,
-    measure: "block check time / summed floors",
-    detail: { series: count, length, core: BATCH_CORE },
+    measure: "calibrated block check time / summed floors of its draws",
+    detail: { series: count, length, core: BATCH_CORE, draws: baseDrawCount(0.05) + 1 },
+  });
+}
+
+/** One calibrated noise check of 260 values, K = 10, against the floor of its draws. */
+export function checkCase(): CaseResult {
+  const length = 260;
+  const k = 10;
+  const block = itemBlock(40, length);
+  const deviations = block.map((s) => centre(s).deviations);
+  const timing = interleaved(
+    () => block.map((s) => noiseCheck(s, { maxLag: k })),
+    () => deviations.map((d) => calibratedFloor(d, k)),
+    9,
+  );
+  return judged({
+    name: "check-260-k10",
+    n: length,
+    k,
+    medianMs: timing.caseMs / block.length,
+    floorMs: timing.floorMs / block.length,
+    ratio: timing.caseMs / timing.floorMs,
+    target: 2,
+    measure: "calibrated noise check time / floor of its draws",
+    detail: { draws: baseDrawCount(0.05) + 1 },
   });
 }
 

@@ -10,6 +10,7 @@
 import {
   crossoverCase,
   batchCase,
+  checkCase,
   cellsCase,
   growthCase,
   lagTableCase,
@@ -62,6 +63,7 @@ function main(): void {
     ["acf", "autocorrelation, 2^20 values, K = 1000", () => longAcfCase(series)],
     ["cells", "intake of 2^20 cells", () => cellsCase(series)],
     ["batch", "block check, 2000 × 260, K = 26", batchCase],
+    ["check", "calibrated noise check, 260 values, K = 10", checkCase],
     ["growth", "growth, n = 2^14 … 2^20", () => growthCase(series)],
     ["crossover", "crossover, n = 2^16", () => crossoverCase(series)],
   ];

@@ -37,6 +37,16 @@ export function optionalNumber(name: string, value: unknown): number | null {
   return invalid(`${name} must be a number (got ${describe(value)})`);
 }
 
+/**
+ * An optional season: omitted, blank or 0 means "no season". The 0 lets a formula name the
+ * arguments after it without leaving an empty argument between commas, whose handling the
+ * host's documentation does not state (the pane's live reports write it so).
+ */
+export function optionalSeason(value: unknown): number | null {
+  const season = optionalNumber("season", value);
+  return season === 0 ? null : season;
+}
+
 /** An optional keyword: passed on as it came; the core's keyword readers check it. */
 export function optionalKeyword(value: unknown): unknown {
   return value ?? null;

@@ -24,7 +24,16 @@ import {
   seriesPortmanteau,
   seriesVolCheck,
 } from "../functions/functions";
-import { lagTable, seriesFromValues, type LagOptions } from "../src/core";
+import {
+  cellReader,
+  csvParseOptions,
+  detectDialect,
+  lagTable,
+  seriesFromValues,
+  type LagOptions,
+  type LagTable,
+  type Series,
+} from "../src/core";
 import {
   batchVerdictCell,
   columnLetters,
@@ -74,15 +83,17 @@ export interface LiveFormula {
   readonly column: number;
 }
 
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
-
+/** The CSV cells, read with the table reader's dialect and cell rules (numbers as numbers). */
 export function readDemoCsv(directory: string, file: string): Grid {
-  const records = parse(readFileSync(join(directory, file), "utf8"), {
-    bom: true,
-    skip_empty_lines: true,
-  }) as string[][];
+  const text = readFileSync(join(directory, file), "utf8");
+  const dialect = detectDialect(text, true);
+  const reader = cellReader({ decimal: dialect.decimal });
+  const records = parse(text, csvParseOptions(dialect)) as string[][];
   return records.map((row, r) =>
-    row.map((cell) => (r > 0 && NUMBER.test(cell) ? Number(cell) : cell)),
+    row.map((cell) => {
+      const value = r > 0 ? reader.read(cell) : undefined;
+      return value !== undefined && Number.isFinite(value) ? value : cell;
+    }),
   );
 }
 
@@ -257,7 +268,7 @@ export function buildDemoWorkbook(directory: string): ExcelJS.Workbook {
     for (const live of layout.live) {
       const result = computeResult(layout.sheet.data, live);
       const rows = result.length;
-      const columns = Math.max(...result.map((row) => row.length));
+      const columns = result.reduce((w, row) => Math.max(w, row.length), 0);
       const ref = `${columnLetters(live.column)}${live.row + 1}:${columnLetters(live.column + columns - 1)}${live.row + rows}`;
       result.forEach((row, i) =>
         row.forEach((value, j) => {
@@ -299,6 +310,13 @@ export interface DemoPortable {
 }
 
 /**
+ * How a series' lag table is made: Echolot's `lagTable`, or (in a test that changes the data in
+ * the written workbook) one that keeps the levels the sheets were written with. `where` is "fund"
+ * or "blend C" for data column C.
+ */
+export type DemoTableOf = (series: Series, options: LagOptions, where: string) => LagTable;
+
+/**
  * The demo's portable plans: the blends' batch and the fund's report. `blendLags` fixes the
  * blends' K (a report keeps the K it was written with when its data grow); by default each
  * blend's K is the add-in's default for its length and season.
@@ -307,6 +325,7 @@ export function demoPortablePlans(
   directory: string,
   placedOn: string,
   blendLags: number | null = null,
+  tableOf: DemoTableOf = lagTable,
 ): DemoPortable[] {
   const [ternpoint, larkvale] = demoLayouts(directory);
   if (ternpoint === undefined || larkvale === undefined) throw new Error("demo layouts missing");
@@ -324,7 +343,7 @@ export function demoPortablePlans(
     items.push({
       label: String(tdata[0]?.[c] ?? `blend ${c}`),
       source,
-      analysis: { table: lagTable(series, blendOptions), series },
+      analysis: { table: tableOf(series, blendOptions, `blend ${c}`), series },
     });
   }
   const ldata = larkvale.sheet.data;
@@ -335,7 +354,7 @@ export function demoPortablePlans(
     {
       name: "larkvale",
       plan: portablePlan(
-        lagTable(fund, fundOptions),
+        tableOf(fund, fundOptions, "fund"),
         fund,
         { sheet: larkvale.sheet.name, column: 1, firstRow: 1, rows: ldata.length - 1 + ROOM },
         { sheetName: LARKVALE_PORTABLE, placedOn, roomToGrow: true },

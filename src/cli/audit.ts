@@ -1,27 +1,31 @@
 /**
- * `echolot audit FILE.csv --horizon H [--season M] [--alpha A] [--lags K] [--json]`: the forecast
- * audit of every numeric column, each an error series of H-step-ahead forecasts.
+ * `echolot audit FILE --horizon H [--season M] [--alpha A] [--lags K] [--json]`: the forecast
+ * audit of every series — every numeric column, or every id in long format (`--id COL --time COL
+ * --value COL`) — each an error series of H-step-ahead forecasts. Every column or id not audited
+ * is listed with why.
  */
 import { auditBatch, type ForecastAuditOptions } from "../core";
 import { auditText } from "../report/auditText";
-import { numericColumns, readCsv } from "./csv";
+import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
+import { notAnalysedLines, readManySeries } from "./input";
 import { auditJson, toJsonText } from "./json";
-import { numberOption, parseCommand } from "./options";
+import { LONG_OPTIONS, numberOption, READ_OPTIONS, type ParsedCommand } from "./options";
 
-const AUDIT_OPTIONS = new Set(["horizon", "season", "alpha", "lags", "json"]);
+export const AUDIT_OPTIONS = [
+  "horizon",
+  "season",
+  "alpha",
+  "lags",
+  ...READ_OPTIONS,
+  ...LONG_OPTIONS,
+  "json",
+];
 
-export function runAudit(argv: readonly string[]): string {
-  const { file, values } = parseCommand(argv);
+export async function runAudit({ files, values }: ParsedCommand): Promise<string> {
+  const file = files[0];
   if (file === undefined) {
     throw new UsageError("audit needs a CSV file: echolot audit FILE.csv --horizon H");
-  }
-  for (const name of Object.keys(values)) {
-    if (values[name] !== undefined && !AUDIT_OPTIONS.has(name)) {
-      throw new UsageError(
-        `audit does not take --${name}; it takes --horizon, --season, --alpha, --lags and --json`,
-      );
-    }
   }
   const horizon = numberOption("horizon", values.horizon);
   if (horizon === undefined) {
@@ -35,8 +39,23 @@ export function runAudit(argv: readonly string[]): string {
     alpha: numberOption("alpha", values.alpha) ?? null,
     maxLag: numberOption("lags", values.lags) ?? null,
   };
-  const result = auditBatch(numericColumns(readCsv(file)), options);
+  const many = await readManySeries(readingFrom(file, values), values);
+  if (many.series.length === 0) {
+    throw new UsageError(
+      `${file} has no series to audit: ${many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ")}`,
+    );
+  }
+  const result = auditBatch(many.series, options);
   return values.json === true
-    ? toJsonText(auditJson(result, options))
-    : auditText(result, horizon, options.season ?? null);
+    ? toJsonText({
+        source: many.source,
+        ...auditJson(result, options),
+        notAnalysed: many.notAnalysed,
+      })
+    : [
+        `read: ${many.source}`,
+        "",
+        auditText(result, horizon, options.season ?? null),
+        ...notAnalysedLines(many),
+      ].join("\n");
 }

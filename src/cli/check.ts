@@ -1,48 +1,41 @@
 /**
- * `echolot check FILE.csv [options]`: the lag table and verdict of one column, with the side
- * checks beside it — volatility (Engle's LM over the table's lags, McLeod–Li), bias (Newey–West),
- * runs about the median and Jarque–Bera. A side check the data cannot support (say, constant
- * squared deviations) is left out of the text and written as null in the JSON, with its reason.
+ * `echolot check FILE [options]`: the lag table and verdict of one column, with the side checks
+ * beside it — volatility (Engle's LM over the table's lags, McLeod–Li), bias (Newey–West), runs
+ * about the median and Jarque–Bera. A side check the data cannot support (say, constant squared
+ * deviations) is left out of the text and written as null in the JSON, with its reason. The
+ * column analysed is named first, with any column passed over on the way to it.
  */
-import {
-  biasCheck,
-  resultOrReason,
-  lagTable,
-  normalityCheck,
-  runsCheck,
-  volatilityCheck,
-  type LagTable,
-  type Series,
-} from "../core";
-import { lagTableText } from "../report";
-import { sideChecksText, type SideChecks } from "../report/sideChecksText";
-import { columnSeries, pickColumn, readCsv } from "./csv";
+import { lagTable } from "../core";
+import { jointSpanText, lagTableText } from "../report";
+import { sideChecks, sideChecksText } from "../report/sideChecksText";
+import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
+import { readOneSeries } from "./input";
 import { lagTableJson, sideChecksJson, toJsonText } from "./json";
-import { lagOptionsFrom, parseCommand } from "./options";
+import {
+  LAG_OPTIONS,
+  lagOptionsFrom,
+  READ_OPTIONS,
+  textOption,
+  type ParsedCommand,
+} from "./options";
 
-export function runCheck(argv: readonly string[]): string {
-  const { file, values } = parseCommand(argv);
-  if (file === undefined) throw new UsageError("check needs a CSV file: echolot check FILE.csv");
+export const CHECK_OPTIONS = ["column", ...LAG_OPTIONS, ...READ_OPTIONS, "json"];
+
+export async function runCheck({ files, values }: ParsedCommand): Promise<string> {
+  const file = files[0];
+  if (file === undefined)
+    throw new UsageError(
+      "check needs a CSV file: echolot check FILE.csv (or - for standard input)",
+    );
   const options = lagOptionsFrom(values);
-  const table = readCsv(file);
-  const column = pickColumn(table, typeof values.column === "string" ? values.column : undefined);
-  const series = columnSeries(table, column);
+  const { series, source } = await readOneSeries(
+    readingFrom(file, values),
+    textOption(values, "column"),
+  );
   const result = lagTable(series, options);
   const side = sideChecks(series, result);
   return values.json === true
-    ? toJsonText({ ...lagTableJson(result), ...sideChecksJson(side) })
-    : `${lagTableText(result)}\n\n${sideChecksText(side)}`;
-}
-
-function sideChecks(series: Series, table: LagTable): SideChecks {
-  return {
-    alpha: table.alpha,
-    volatility: resultOrReason(() =>
-      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
-    ),
-    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
-    runs: resultOrReason(() => runsCheck(series)),
-    normality: resultOrReason(() => normalityCheck(series)),
-  };
+    ? toJsonText({ source, ...lagTableJson(result), ...sideChecksJson(side) })
+    : `read: ${source}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
 }

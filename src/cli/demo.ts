@@ -2,16 +2,17 @@
 import { join } from "node:path";
 import { formatP, noiseCheck } from "../core";
 import { BADGES, SCREENING_CAUTION } from "../report";
-import { numericColumns, readCsv } from "./csv";
+import { readingFrom } from "./csv";
+import { readManySeries } from "./input";
 import { DEMO_SCENARIOS, demoDirectory } from "./scenarios";
 
-export function runDemo(): string {
+export async function runDemo(): Promise<string> {
   const lines: string[] = [];
   for (const scenario of DEMO_SCENARIOS) {
     const file = join(demoDirectory(), scenario.file);
     lines.push(scenario.title, `  ${scenario.story}`, `  file: ${file}`, "");
-    const series = numericColumns(readCsv(file));
-    const width = Math.max(...series.map((s) => s.label.length));
+    const { series } = await readManySeries(readingFrom(file, {}), {});
+    const width = series.reduce((w, s) => Math.max(w, s.label.length), 0);
     for (const reading of scenario.readings) {
       if (scenario.readings.length > 1) lines.push(`  reading: ${reading.name}`);
       for (const one of series) {

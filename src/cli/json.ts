@@ -3,7 +3,15 @@
  * precision (JSON.stringify writes the shortest round-trip form); an undefined figure (NaN) is
  * written as null.
  */
-import type { AuditBatch, BatchCheck, ForecastAuditOptions, LagTable } from "../core";
+import type {
+  AuditBatch,
+  BatchCheck,
+  ForecastAuditOptions,
+  LagTable,
+  ReferencedP,
+  VerdictLevels,
+} from "../core";
+import { isPValueBound } from "../core";
 import type { SideChecks } from "../report/sideChecksText";
 
 export function lagTableJson(table: LagTable): Record<string, unknown> {
@@ -30,12 +38,24 @@ export function lagTableJson(table: LagTable): Record<string, unknown> {
       z: row.z,
       pLag: row.pLag,
       pSidak: row.pSidak,
+      pBound: isPValueBound(row.pLag),
       outer: row.outer,
       jointQ: row.jointQ,
       jointDf: row.jointDf,
       jointP: row.jointP,
+      jointPReference: "chi-square",
     })),
-    joint: { test: table.joint.test, q: table.joint.q, df: table.joint.df, p: table.joint.p },
+    joint: {
+      test: table.joint.test,
+      q: table.joint.q,
+      df: table.joint.df,
+      p: table.joint.p,
+      reference: "chi-square",
+      pBound: isPValueBound(table.joint.p),
+    },
+    verdictJoint: { p: table.levels.jointP.p, ...referenceFields(table.levels.jointP) },
+    levels: levelFields(table.levels),
+    jointLevel: table.jointLevel,
     falseAlarm: {
       tested: table.falseAlarm.tested,
       expected: table.falseAlarm.expected,
@@ -133,7 +153,9 @@ export function auditJson(
         n: audit.n,
         q: audit.dependenceTest.q,
         df: audit.dependenceTest.df,
-        p: audit.dependenceTest.p,
+        p: audit.levels.jointP.p,
+        ...referenceFields(audit.levels.jointP),
+        pChiSquare: audit.dependenceTest.p,
         qValue: item.dependenceQValue,
         verdict: audit.verdict.word,
         reason: audit.verdict.reason,
@@ -143,11 +165,17 @@ export function auditJson(
         bias: {
           mean: audit.bias.mean,
           se: audit.bias.se,
-          t: audit.bias.t,
+          t: audit.bias.tCorrected,
+          tUncorrected: audit.bias.t,
+          df: audit.bias.df,
           p: audit.bias.p,
+          reference: "student-t",
           qValue: item.biasQValue,
-          hacLags: audit.bias.hacLags,
+          longRunLags: audit.bias.horizon - 1,
+          flagged: audit.levels.biasFlagged,
+          level: audit.levels.biasLevel,
         },
+        levels: levelFields(audit.levels),
         lags: audit.rows.map((row) => ({
           lag: row.lag,
           corr: row.correlation,
@@ -164,6 +192,23 @@ export function auditJson(
     flaggedFdr: batch.flaggedFdr,
     biasFlaggedRaw: batch.biasFlaggedRaw,
     biasFlaggedFdr: batch.biasFlaggedFdr,
+  };
+}
+
+/** Where a p comes from: its reference, the draws behind it, and whether it is only a bound. */
+export function referenceFields(rp: ReferencedP): Record<string, unknown> {
+  return { reference: rp.reference, draws: rp.draws, pBound: rp.bound || isPValueBound(rp.p) };
+}
+
+/** The levels the verdict was judged at. */
+export function levelFields(levels: VerdictLevels): Record<string, unknown> {
+  return {
+    reference: levels.reference,
+    draws: levels.draws,
+    structureLevel: levels.structureLevel,
+    criticalQ: levels.criticalQ,
+    outerLevel: levels.outerLevel,
+    watchLevel: levels.watchLevel,
   };
 }
 

@@ -1,35 +1,53 @@
 /**
- * The `echolot` command line: CSV in, text or JSON out. Exit 0 on success; exit 2 on bad input or
- * arguments, with one message on stderr and nothing on stdout; exit 1 on an internal failure.
+ * The `echolot` command line: CSV in, text or JSON out. Exit 0 on success (and when the reader of
+ * the output closes the pipe early); exit 2 on bad input or arguments or a failed write, with one
+ * message on stderr and nothing on stdout; exit 1 on an internal failure.
  */
 import { isEcholotError } from "../core";
-import { runAudit } from "./audit";
-import { runBatch } from "./batch";
-import { runCheck } from "./check";
+import { AUDIT_OPTIONS, runAudit } from "./audit";
+import { BATCH_OPTIONS, runBatch } from "./batch";
+import { CHECK_OPTIONS, runCheck } from "./check";
 import { runDemo } from "./demo";
-import { runReport } from "./report";
-import { runWorkbook } from "./workbook";
+import { FDR_OPTIONS, runFdr } from "./fdr";
+import { REPORT_OPTIONS, runReport } from "./report";
+import { runWorkbook, WORKBOOK_OPTIONS } from "./workbook";
 import { UsageError } from "./errors";
+import { parseCommand, type ParsedCommand } from "./options";
+import { writeStdout } from "./output";
 
-const USAGE = `usage:
-  echolot check FILE.csv [--column NAME|N] [--lags K] [--season M] [--fitted P] [--alpha A]
-                         [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
-  echolot audit FILE.csv --horizon H [--season M] [--alpha A] [--lags K] [--json]
-  echolot batch FILE.csv [--lags K] [--season M] [--fitted P] [--alpha A]
-                         [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares] [--json]
-  echolot report FILE.csv [same options as check] --out report.html
-  echolot workbook FILE.csv [same options as check] [--batch] --out book.xlsx [--force]
-  echolot demo`;
+const READ = "[--delimiter ,|;|tab] [--decimal .|,] [--na WORD,…] [--percent] [--no-header]";
+const LAGS =
+  "[--lags K] [--season M] [--fitted P] [--alpha A] [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares]";
+const LONG = "[--id COL --time COL --value COL]";
 
-type Command = (argv: readonly string[]) => string | Promise<string>;
+const USAGES: Readonly<Record<string, string>> = {
+  check: `echolot check FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--json]`,
+  audit: `echolot audit FILE.csv|- --horizon H [--season M] [--alpha A] [--lags K] ${LONG} ${READ} [--json]`,
+  batch: `echolot batch FILE.csv|- ${LAGS} ${LONG} ${READ} [--json | --format text|json|jsonl]`,
+  report: `echolot report FILE.csv|- [--column NAME|N] ${LAGS} ${READ} --out report.html [--force]`,
+  workbook: `echolot workbook FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--batch] --out book.xlsx [--force]`,
+  fdr: "echolot fdr [PART.jsonl … | -] [--json | --format text|json|jsonl]",
+  demo: "echolot demo",
+};
+
+const USAGE = `usage:\n${Object.values(USAGES)
+  .map((u) => `  ${u}`)
+  .join("\n")}`;
+
+interface Command {
+  readonly options: readonly string[];
+  readonly maxFiles: number;
+  readonly run: (parsed: ParsedCommand) => Promise<string> | string;
+}
 
 const COMMANDS: Readonly<Record<string, Command>> = {
-  check: runCheck,
-  audit: runAudit,
-  batch: runBatch,
-  report: runReport,
-  workbook: runWorkbook,
-  demo: () => runDemo(),
+  check: { options: CHECK_OPTIONS, maxFiles: 1, run: runCheck },
+  audit: { options: AUDIT_OPTIONS, maxFiles: 1, run: runAudit },
+  batch: { options: BATCH_OPTIONS, maxFiles: 1, run: runBatch },
+  report: { options: REPORT_OPTIONS, maxFiles: 1, run: runReport },
+  workbook: { options: WORKBOOK_OPTIONS, maxFiles: 1, run: runWorkbook },
+  fdr: { options: FDR_OPTIONS, maxFiles: Infinity, run: runFdr },
+  demo: { options: [], maxFiles: 0, run: () => runDemo() },
 };
 
 /** Option names of the core's messages, as the CLI spells them. */
@@ -44,41 +62,35 @@ function cliWording(message: string): string {
     .replace(/^horizon\b/, "--horizon");
 }
 
-export function main(argv: readonly string[]): number | Promise<number> {
+async function run(argv: readonly string[]): Promise<{ status: number; output: string }> {
   const [name, ...rest] = argv;
-  if (name === "--help" || name === "help") {
-    process.stdout.write(`${USAGE}\n`);
-    return 0;
+  if (name === "--help" || name === "-h") return { status: 0, output: USAGE };
+  if (name === "help") {
+    const usage = rest[0] === undefined ? undefined : USAGES[rest[0]];
+    return { status: 0, output: usage === undefined ? USAGE : `usage: ${usage}` };
   }
-  if (name === undefined) {
-    process.stderr.write(`echolot: no command given\n${USAGE}\n`);
-    return 2;
-  }
+  if (name === undefined) throw new UsageError(`no command given\n${USAGE}`);
   const command = COMMANDS[name];
+  if (command === undefined) throw new UsageError(`unknown command "${name}"\n${USAGE}`);
+  const parsed = parseCommand(name, rest, command.options, command.maxFiles);
+  if (parsed.help) return { status: 0, output: `usage: ${USAGES[name] ?? USAGE}` };
+  return { status: 0, output: await command.run(parsed) };
+}
+
+export async function main(argv: readonly string[]): Promise<number> {
   try {
-    if (command === undefined) throw new UsageError(`unknown command "${name}"\n${USAGE}`);
-    const output = command(rest);
-    if (typeof output !== "string") return output.then(written, failed);
-    return written(output);
+    const { output } = await run(argv);
+    return await writeStdout(output.endsWith("\n") ? output : `${output}\n`);
   } catch (error) {
-    return failed(error);
+    if (error instanceof UsageError || isEcholotError(error)) {
+      process.stderr.write(`echolot: ${cliWording(error.message)}\n`);
+      return 2;
+    }
+    process.stderr.write(`echolot: internal error: ${(error as Error).stack ?? String(error)}\n`);
+    return 1;
   }
 }
 
-function written(output: string): number {
-  process.stdout.write(output.endsWith("\n") ? output : `${output}\n`);
-  return 0;
-}
-
-function failed(error: unknown): number {
-  if (error instanceof UsageError || isEcholotError(error)) {
-    process.stderr.write(`echolot: ${cliWording(error.message)}\n`);
-    return 2;
-  }
-  process.stderr.write(`echolot: internal error: ${(error as Error).stack ?? String(error)}\n`);
-  return 1;
-}
-
-void Promise.resolve(main(process.argv.slice(2))).then((code) => {
-  process.exitCode = code;
+void main(process.argv.slice(2)).then((status) => {
+  process.exitCode = status;
 });

@@ -1,37 +1,105 @@
 /**
- * `echolot report FILE.csv [check options] --out report.html`: the pane's view of one column as a
- * self-contained HTML file — verdict badge, evidence chart (correlation, partial, squared
- * deviations), joint-test ribbon, explanation and figures; no script, nothing loaded from
- * anywhere.
+ * `echolot report FILE [check options] --out report.html [--force]`: a self-contained HTML file.
+ * One column (named with --column, or the only series in the file) gives the pane's view of it —
+ * verdict badge, evidence chart (correlation, partial, squared deviations), joint-test ribbon,
+ * explanation, side checks and figures. A file with several series gives a batch report: the
+ * ranked table, then each series' chart on demand. The report names the input by its file name
+ * only: a folder path says nothing to a reader and may say too much about the writer. The file is
+ * written safely (output.ts): never over the input, never over an existing file without --force,
+ * never half-written.
  */
-import { writeFileSync } from "node:fs";
-import { BADGES, seriesReport, seriesReportHtml } from "../report";
-import { columnSeries, pickColumn, readCsv } from "./csv";
+import { basename } from "node:path";
+import { batchCheck, isEcholotError, type LagOptions, type Series } from "../core";
+import {
+  BADGES,
+  batchReportHtml,
+  seriesReport,
+  seriesReportHtml,
+  settingsLine,
+  type BatchItem,
+} from "../report";
+import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { lagOptionsFrom, parseCommand } from "./options";
+import { readManySeries, readOneSeries } from "./input";
+import {
+  LAG_OPTIONS,
+  lagOptionsFrom,
+  READ_OPTIONS,
+  textOption,
+  type ParsedCommand,
+} from "./options";
+import { writeOutFile } from "./output";
+import { ECHOLOT_VERSION } from "./version";
 
-export function runReport(argv: readonly string[]): string {
-  const { file, values } = parseCommand(argv);
+export const REPORT_OPTIONS = ["column", ...LAG_OPTIONS, ...READ_OPTIONS, "out", "force"];
+
+export async function runReport({ files, values }: ParsedCommand): Promise<string> {
+  const file = files[0];
   if (file === undefined) {
     throw new UsageError("report needs a CSV file: echolot report FILE.csv --out report.html");
   }
-  const out = values.out;
-  if (typeof out !== "string" || out.trim() === "") {
+  const out = textOption(values, "out");
+  if (out === undefined || out.trim() === "") {
     throw new UsageError("report needs --out FILE.html: where to write the report");
   }
-  if (values.json === true)
-    throw new UsageError("--json does not apply to report; use check --json");
   const options = lagOptionsFrom(values);
-  const table = readCsv(file);
-  const column = pickColumn(table, typeof values.column === "string" ? values.column : undefined);
-  const report = seriesReport(columnSeries(table, column), options);
-  const html = seriesReportHtml(report, `${file}, column ${column + 1}`);
-  try {
-    writeFileSync(out, html, "utf8");
-  } catch {
-    throw new UsageError(`cannot write ${out}: check that its folder exists and is writable`);
+  const meta = { made: new Date(), version: ECHOLOT_VERSION };
+  const name = file === "-" ? "standard input" : basename(file);
+  const chosen = textOption(values, "column");
+  let html: string;
+  let said: string;
+  let source: string;
+  let single: { series: Series; label: string } | undefined;
+  if (chosen === undefined) {
+    const many = await readManySeries(readingFrom(file, values), values);
+    source = many.source;
+    if (many.series.length >= 2) {
+      ({ html, said } = batchReport(many.series, options, { ...meta, title: name }));
+    } else {
+      const series = many.series[0];
+      if (series === undefined) throw new UsageError(`${name} has no series to report on`);
+      single = { series, label: series.label === "" ? "column 1" : series.label };
+    }
+  } else {
+    const one = await readOneSeries(readingFrom(file, values), chosen);
+    source = one.source;
+    single = { series: one.series, label: one.column.name };
   }
-  const badge = BADGES[report.table.verdict.word];
-  const name = report.table.label === "" ? "the series" : report.table.label;
-  return `wrote ${out}: ${name}, ${badge.shape} ${badge.word}`;
+  if (single !== undefined) {
+    const report = seriesReport(single.series, options);
+    html = seriesReportHtml(report, { ...meta, source: `${name}, column “${single.label}”` });
+    const badge = BADGES[report.table.verdict.word];
+    const shown = report.table.label === "" ? "the series" : report.table.label;
+    said = `${shown}, ${badge.shape} ${badge.word}`;
+  }
+  writeOutFile(out, html!, values.force === true, [file]);
+  return `read: ${source}\nwrote ${out}: ${said!}`;
+}
+
+function batchReport(
+  columns: readonly Series[],
+  options: LagOptions,
+  meta: { made: Date; version: string; title: string },
+): { html: string; said: string } {
+  const batch = batchCheck(columns, options);
+  const items: BatchItem[] = columns.map((series, i) => {
+    try {
+      return seriesReport(series, options);
+    } catch (error) {
+      if (!isEcholotError(error)) throw error;
+      return { label: batch.rows[i]?.label ?? `series ${i + 1}`, reason: error.message };
+    }
+  });
+  const first = items.find((item) => "table" in item);
+  const settings =
+    first === undefined || !("table" in first) ? "" : `${settingsLine(first.table)} (each series)`;
+  const html = batchReportHtml(batch, items, {
+    ...meta,
+    source: meta.title,
+    settings: `${columns.length} columns of numbers · ${settings}`,
+  });
+  return {
+    html,
+    said: `batch report of ${columns.length} columns, ${batch.flaggedFdr} flagged after the false-discovery step`,
+  };
 }

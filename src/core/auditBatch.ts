@@ -3,7 +3,8 @@
  * audit (forecastAudit.ts), and across the items Benjamini–Hochberg q-values (Benjamini & Hochberg
  * 1995, JRSS B 57:289–300; multiplicity.ts) of the dependence test and of the bias test
  * separately, with how many items each flags raw (p < alpha) and under the false-discovery rate
- * (q ≤ alpha). An item that cannot be audited (too few values, constant) keeps its place with
+ * (q ≤ alpha). The dependence p is the audit's Monte Carlo one (auditReference.ts), the bias p
+ * the Harvey–Leybourne–Newbold t (horizonBias.ts). An item that cannot be audited (too few values, constant) keeps its place with
  * the reason and stays out of both families; when no item can be audited the first refusal is
  * thrown. Cost: one audit per series.
  */
@@ -53,7 +54,7 @@ export function auditBatch(
     }
   });
   if (audited.every((item) => item.audit === null)) throw firstRefusal;
-  const dependenceP = audited.map((item) => item.audit?.dependenceTest.p ?? NaN);
+  const dependenceP = audited.map((item) => item.audit?.levels.jointP.p ?? NaN);
   const biasP = audited.map((item) => item.audit?.bias.p ?? NaN);
   const dependenceQ = benjaminiHochberg(dependenceP);
   const biasQ = benjaminiHochberg(biasP);

@@ -1,5 +1,6 @@
 /**
- * The batch check: one noise check per series (the lag table's joint test and verdict), and
+ * The batch check: one noise check per series (its verdict and the joint test's p as the verdict
+ * uses it: exact, by permutation, for ordinary lengths — verdictReference.ts), and
  * Benjamini–Hochberg q-values across the series (Benjamini & Hochberg 1995, JRSS B 57:289–300;
  * multiplicity.ts), so that an auditor with 200 items sees which few to look at without the
  * five-percent false alarms of 200 separate tests.
@@ -18,6 +19,8 @@ import { noiseCheck } from "./lagTable";
 import { benjaminiHochberg } from "./multiplicity";
 import { resolveAlpha, type LagOptions } from "./options";
 import type { Series, VerdictWord } from "./types";
+import { isPValueBound } from "./distributions";
+import type { ReferencedP } from "./verdictReference";
 
 export interface BatchRow {
   readonly label: string;
@@ -25,9 +28,17 @@ export interface BatchRow {
   /** Joint-test statistic Q, df and p (NaN when the series could not be analysed). */
   readonly q: number;
   readonly df: number;
+  /** The joint test's p as the verdict uses it (permutation for ordinary lengths; χ² beyond). */
   readonly p: number;
+  /** Where p comes from and how many draws are behind it (null when not analysed). */
+  readonly reference: ReferencedP["reference"] | null;
+  readonly draws: number;
+  /** p is only an upper bound (no draw reached the statistic, or the 1e-300 floor). */
+  readonly pBound: boolean;
   /** Benjamini–Hochberg q-value across the series analysed. */
   readonly qValue: number;
+  /** The q-value rests on a p that is only a bound, so it is itself an upper bound. */
+  readonly qValueBound: boolean;
   /** The noise check's verdict; null when the series could not be analysed. */
   readonly verdict: VerdictWord | null;
   /** The verdict's reason, or why the series could not be analysed. */
@@ -63,13 +74,17 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
     const label = batchLabel(series, index);
     try {
       const table = noiseCheck(series, options);
-      const { q, df, p } = table.joint;
+      const { q, df } = table.joint;
+      const exact = table.levels.jointP;
       return {
         label,
         n: table.n,
         q,
         df,
-        p,
+        p: exact.p,
+        reference: exact.reference,
+        draws: exact.draws,
+        pBound: exact.bound || isPValueBound(exact.p),
         verdict: table.verdict.word,
         reason: table.verdict.reason,
       };
@@ -82,6 +97,9 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
         q: NaN,
         df: 0,
         p: NaN,
+        reference: null,
+        draws: 0,
+        pBound: false,
         verdict: null,
         reason: error.message,
       };
@@ -90,7 +108,12 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
   // When no series at all can be analysed the options themselves are at fault: say so once.
   if (partial.every((row) => row.verdict === null)) throw firstRefusal;
   const qValues = benjaminiHochberg(partial.map((row) => row.p));
-  const rows: BatchRow[] = partial.map((row, i) => ({ ...row, qValue: qValues[i] as number }));
+  const qBounds = boundedQValues(partial);
+  const rows: BatchRow[] = partial.map((row, i) => ({
+    ...row,
+    qValue: qValues[i] as number,
+    qValueBound: qBounds[i] as boolean,
+  }));
   return {
     alpha,
     rows,
@@ -98,4 +121,14 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
     flaggedFdr: rows.filter((row) => row.qValue <= alpha).length,
     analysed: rows.filter((row) => !Number.isNaN(row.p)).length,
   };
+}
+
+/**
+ * q_i = min over p_j ≥ p_i of m·p_j/rank_j, so q_i is only an upper bound when some p_j ≥ p_i
+ * in that minimum is a bound: that is, when p_i is at most the largest bounded p.
+ */
+export function boundedQValues(rows: readonly { p: number; pBound: boolean }[]): boolean[] {
+  let largestBound = -Infinity;
+  for (const row of rows) if (row.pBound && row.p > largestBound) largestBound = row.p;
+  return rows.map((row) => !Number.isNaN(row.p) && row.p <= largestBound);
 }

@@ -65,10 +65,14 @@ export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck 
   const L = resolveHacLags(options.hacLags, n);
   let gamma: Float64Array;
   let mean: number;
+  let scale: number;
   try {
     const ac = autocorrelation(series, L);
-    gamma = ac.autocovariance;
+    // In the deviations' own scale (centre.ts), so that data near 1e155 or 1e-200 neither
+    // overflow nor underflow on the way to t; absolute figures are multiplied back at the end.
+    gamma = ac.correlation.map((r) => (r * ac.sumSquares) / n);
     mean = ac.mean;
+    scale = ac.scale;
   } catch (error) {
     if (!isEcholotError(error)) throw error;
     invalid(
@@ -85,14 +89,15 @@ export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck 
       `the long-run variance of ${seriesName(series.label)} is 0 with hacLags ${L}; choose a smaller hacLags`,
     );
   }
-  const se = Math.sqrt(lrv / n);
-  const t = mean / se;
+  const seScaled = Math.sqrt(lrv / n);
+  const t = mean / scale / seScaled;
+  const se = seScaled * scale;
   const p = normalTwoSided(t);
   return {
     label: series.label,
     n,
     mean,
-    longRunVariance: lrv,
+    longRunVariance: lrv * scale * scale,
     se,
     t,
     p,

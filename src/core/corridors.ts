@@ -17,7 +17,12 @@ export interface CorridorLevels {
   readonly outerLevel: number;
 }
 
-/** The inner and outer corridor levels for `lags` lags counted at family-wise level `alpha`. */
+/** The inner corridor z_{1−α/2}: one lag on its own at level α. */
+export function innerCorridor(alpha: number): number {
+  return normalQuantile(1 - alpha / 2);
+}
+
+/** The inner and Šidák outer corridor levels for `lags` lags counted at family-wise level `alpha`. */
 export function corridorLevels(alpha: number, lags: number): CorridorLevels {
   return {
     innerLevel: normalQuantile(1 - alpha / 2),

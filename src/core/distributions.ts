@@ -11,6 +11,7 @@ import gammainc from "@stdlib/math-base-special-gammainc";
 import betainc from "@stdlib/math-base-special-betainc";
 import erfc from "@stdlib/math-base-special-erfc";
 import normalQuantileStdlib from "@stdlib/stats-base-dists-normal-quantile";
+import { upperGammaRegularised } from "./chiSquareTail";
 
 export const P_VALUE_FLOOR = 1e-300;
 
@@ -24,10 +25,20 @@ export function isPValueBound(p: number): boolean {
   return p <= P_VALUE_FLOOR;
 }
 
-/** P(χ²_df ≥ x) = Q(df/2, x/2), the regularised upper incomplete gamma. */
+/** Above this χ² statistic (or df) the tail comes from chiSquareTail.ts, not from stdlib. */
+const LARGE_CHI_SQUARE = 1000;
+
+/**
+ * P(χ²_df ≥ x) = Q(df/2, x/2), the regularised upper incomplete gamma: stdlib's gammainc for
+ * ordinary arguments, and Echolot's own series and continued fraction (chiSquareTail.ts) beyond
+ * 1000, where stdlib's is off by up to a few percent.
+ */
 export function chiSquareUpperTail(x: number, df: number): number {
   if (Number.isNaN(x) || !(df > 0)) return NaN;
   if (x <= 0) return 1;
+  if (x > LARGE_CHI_SQUARE || df > LARGE_CHI_SQUARE) {
+    return floored(upperGammaRegularised(df / 2, x / 2));
+  }
   return floored(gammainc(x / 2, df / 2, true, true));
 }
 
@@ -56,4 +67,15 @@ export function binomialUpperTail(m: number, trials: number, prob: number): numb
   if (!(m > 0)) return 1;
   if (m > trials) return 0;
   return betainc(prob, m, trials - m + 1, true, false);
+}
+
+/**
+ * Two-sided p of Student's t with ν degrees of freedom, P(|T| ≥ |t|) = I_{ν/(ν+t²)}(ν/2, 1/2),
+ * the regularised incomplete beta taken directly (Abramowitz & Stegun 26.7.1), so a far-tail p
+ * keeps its digits.
+ */
+export function studentTwoSided(t: number, df: number): number {
+  if (Number.isNaN(t) || !(df > 0)) return NaN;
+  if (!Number.isFinite(t)) return P_VALUE_FLOOR;
+  return floored(betainc(df / (df + t * t), df / 2, 0.5, true, false));
 }

@@ -5,29 +5,36 @@
  * The errors of an optimal h-step forecast are MA(h−1) (Box, Jenkins & Reinsel, *Time Series
  * Analysis*, §5.1: the error is Σ_{j<h} ψ_j a_{t−j}), so lags 1..h−1 are expected to be non-zero.
  * They are reported, not counted against the forecast:
- * - bias: the mean error with a Newey–West standard error over L ≥ h−1 lags (bias.ts);
+ * - bias: the mean error with the rectangular long-run variance over lags 0..h−1 and the Harvey,
+ *   Leybourne & Newbold correction, against Student's t with n − 1 df (horizonBias.ts);
  * - dependence: lags h..K, Bartlett bands (bands.ts, se_k from the lags before k) and the joint
  *   test of lags h..K that allows for the expected MA(h−1) dependence (laterLags.ts; exactly
  *   Ljung–Box for h = 1), judged by the same rules and words as the noise check (verdict.ts) with
  *   the false-alarm note over the lags counted;
- * - the verdict: `structure` when the bias test rejects at alpha (a systematic error the forecast
- *   should remove), otherwise the dependence verdict; `short` when that is short.
+ * - the levels: one Monte Carlo reference under the fitted MA(h−1) null holds the bias test, the
+ *   joint test and the outer corridor together at alpha (auditReference.ts), so correct h-step
+ *   errors are called `structure` about alpha of the time; the dependence p shown is that
+ *   reference's;
+ * - the verdict: `structure` when the bias is flagged (a systematic error the forecast should
+ *   remove), otherwise the dependence verdict; `short` when that is short.
  * K defaults to h − 1 plus the usual number of lags, min(10, ⌊n/5⌋) or min(2m, ⌊n/5⌋) with season
- * m, so as many lags are counted as in the noise check. Cost O(n·K + K³).
+ * m (raised to include the seasonal lags where n allows), so as many lags are counted as in the
+ * noise check. Cost O(n·K + K³) plus the reference's draws.
  */
 import { autocorrelation } from "./autocovariance";
 import { standardErrors } from "./bands";
-import { biasCheck, defaultHacLags, type BiasCheck } from "./bias";
-import { defaultMaxLag } from "./defaultLags";
-import { corridorCrossings, corridorLevels } from "./corridors";
+import { auditLevels, type AuditLevels } from "./auditReference";
+import { defaultMaxLag, untestedSeasonalLags } from "./defaultLags";
+import { corridorCrossings, innerCorridor } from "./corridors";
 import { normalTwoSided } from "./distributions";
 import { invalid } from "./errors";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
-import { formatNumber, pPhrase } from "./format";
+import { formatLevel, formatNumber, pPhrase } from "./format";
+import { horizonBias, type HorizonBias } from "./horizonBias";
 import { laterLagsTest, type LaterLagsTest } from "./laterLags";
 import { requireValues, resolveAlpha, resolveSeason } from "./options";
 import type { Series } from "./types";
-import { judge, type Verdict, type VerdictLag } from "./verdict";
+import { judge, seasonalLags, type Verdict, type VerdictLag } from "./verdict";
 
 export interface ForecastAuditOptions {
   /** h, the forecast horizon in periods: 1 for one-step-ahead errors. */
@@ -55,7 +62,9 @@ export interface ForecastAudit {
   readonly season: number | null;
   readonly alpha: number;
   readonly maxLag: number;
-  readonly bias: BiasCheck;
+  readonly bias: HorizonBias;
+  /** The Monte Carlo reference's levels and the dependence p it gives. */
+  readonly levels: AuditLevels;
   readonly rows: readonly AuditLag[];
   readonly innerLevel: number;
   readonly outerLevel: number;
@@ -103,13 +112,38 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
   const season = resolveSeason(options.season, n);
   const K = resolveAuditMaxLag(options, h, n, season);
 
-  const bias = biasCheck(series, { hacLags: Math.max(defaultHacLags(n), h - 1), alpha });
+  const bias = horizonBias(series, h);
   const ac = autocorrelation(series, K);
   const se = standardErrors("bartlett", ac, K);
-  const counted = K - h + 1;
-  const levels = corridorLevels(alpha, counted);
-  const { innerLevel, outerLevel } = levels;
-  const crossings = corridorCrossings(ac.correlation, se, levels, h);
+  const innerLevel = innerCorridor(alpha);
+  const z = Float64Array.from(
+    { length: K },
+    (_, i) => (ac.correlation[i + 1] as number) / (se[i] as number),
+  );
+  const dependenceTest = laterLagsTest(ac.correlation, ac.n, h);
+  const keyLags = [h, ...seasonalLags(season, K).filter((lag) => lag >= h)];
+  const levels = auditLevels({
+    present: series.present,
+    n: ac.n,
+    horizon: h,
+    maxLag: K,
+    alpha,
+    pairs: ac.pairs,
+    correlation: ac.correlation,
+    tCorrected: bias.tCorrected,
+    q: dependenceTest.q,
+    z,
+    innerLevel,
+    keyLags,
+    values: series.values,
+    seedWords: ["audit", String(h), String(K), String(alpha), String(season)],
+  });
+  const crossings = corridorCrossings(
+    ac.correlation,
+    se,
+    { innerLevel, outerLevel: levels.outerLevel },
+    h,
+  );
   const { tested, beyondLags } = crossings;
   const rows: AuditLag[] = crossings.lags.map(({ lag, correlation, z, beyond, outer }) => {
     const s = se[lag - 1] as number;
@@ -125,7 +159,6 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
       counted: lag >= h,
     };
   });
-  const dependenceTest = laterLagsTest(ac.correlation, ac.n, h);
   const falseAlarm = falseAlarmNote(tested, alpha, beyondLags);
   const testName = h === 1 ? "Ljung–Box" : `Ljung–Box (adjusted for the ${h}-step horizon)`;
   const dependence = judge({
@@ -135,7 +168,9 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
     season,
     lags: rows,
     joint: { test: "ljung-box", q: dependenceTest.q, df: dependenceTest.df, p: dependenceTest.p },
+    levels,
     falseAlarm,
+    untestedSeasonal: untestedSeasonalLags(season, K),
     firstLag: h,
     testName,
   });
@@ -148,19 +183,28 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
     alpha,
     maxLag: K,
     bias,
+    levels,
     rows,
     innerLevel,
-    outerLevel,
+    outerLevel: levels.outerLevel,
     dependenceTest,
     falseAlarm,
     dependence,
-    verdict: combined(bias, dependence),
+    verdict: combined(bias, levels, alpha, dependence),
   };
 }
 
-function combined(bias: BiasCheck, dependence: Verdict): Verdict {
-  if (dependence.word === "short" || !bias.flagged) return dependence;
-  const sentence = `The forecasts are biased: mean error ${formatNumber(bias.mean, 4)} (Newey–West se ${formatNumber(bias.se, 3)} over ${bias.hacLags} lag${bias.hacLags === 1 ? "" : "s"}, t = ${formatNumber(bias.t, 3)}, ${pPhrase(bias.p)}).`;
+function combined(
+  bias: HorizonBias,
+  levels: AuditLevels,
+  alpha: number,
+  dependence: Verdict,
+): Verdict {
+  if (dependence.word === "short" || !levels.biasFlagged) return dependence;
+  const variance = bias.fallback
+    ? "plain variance (the rectangular long-run variance was not positive)"
+    : `long-run variance over lags 0–${bias.horizon - 1}`;
+  const sentence = `The forecasts are biased: mean error ${formatNumber(bias.mean, 4)} (se ${formatNumber(bias.se, 3)} from the ${variance}, corrected t = ${formatNumber(bias.tCorrected, 3)}, ${pPhrase(bias.p)} against t with ${bias.df} df; bias, dependence and the all-lags corridor together are set to fire for ${formatLevel(alpha)} of correct forecasts, the bias at p < ${formatNumber(levels.biasLevel, 2)}).`;
   return {
     word: "structure",
     reason: `${sentence} Dependence (${dependence.word}): ${dependence.reason}`,

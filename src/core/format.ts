@@ -3,6 +3,7 @@
  * keep full precision; only prose is rounded.
  */
 import { isPValueBound } from "./distributions";
+import type { ReferencedP } from "./verdictReference";
 
 /** A p-value for prose: "0.42", "0.0054", "3.2e-7", or "< 1e-300" at the floor. */
 export function formatP(p: number): string {
@@ -47,4 +48,31 @@ export function formatLagList(lags: readonly number[], most = 8): string {
   const shown = lags.slice(0, most).join(", ");
   const rest = lags.length - most;
   return `lags ${shown}${rest > 0 ? ` and ${rest} more` : ""}`;
+}
+
+const REFERENCE_WORDS: Readonly<Record<ReferencedP["reference"], string>> = {
+  permutation: "permutation",
+  "chi-square": "χ²",
+  "monte-carlo": "Monte Carlo",
+};
+
+/** Where a p-value comes from, for labels: "permutation, 499 draws", "χ²". */
+export function pReferenceLabel(rp: ReferencedP): string {
+  return rp.draws > 0
+    ? `${REFERENCE_WORDS[rp.reference]}, ${rp.draws.toLocaleString("en-US")} draws`
+    : REFERENCE_WORDS[rp.reference];
+}
+
+/**
+ * A p-value with its reference, as a clause without brackets (it often stands inside some):
+ * "p = 0.004 by permutation of 499 draws", "p < 5e-5 by permutation of 19,999 draws" when no draw
+ * reached the statistic, "p = 0.012 from χ²", "p < 1e-300 from χ²".
+ */
+export function referencedPPhrase(rp: ReferencedP): string {
+  const from =
+    rp.draws > 0
+      ? `by ${REFERENCE_WORDS[rp.reference]} of ${rp.draws.toLocaleString("en-US")} draws`
+      : `from ${REFERENCE_WORDS[rp.reference]}`;
+  if (rp.bound) return `p < ${rp.p >= 0.001 ? formatP(rp.p) : rp.p.toExponential(0)} ${from}`;
+  return `${pPhrase(rp.p)} ${from}`;
 }

@@ -10,7 +10,7 @@
  * Nothing is silently dropped: dropping a value would shift every lag after it. O(n), one pass
  * over the cells, no copy of them.
  */
-import { invalid, seriesName, tooShort } from "./errors";
+import { EcholotError, invalid, seriesName, tooShort } from "./errors";
 import type { Series } from "./types";
 
 /** How a position is named in messages, from its 0-based index in the list given. */
@@ -29,7 +29,20 @@ export interface IntakeOptions {
 export function cellErrorCode(cell: unknown): string | undefined {
   if (typeof cell !== "object" || cell === null) return undefined;
   const code = (cell as { code?: unknown }).code;
-  return typeof code === "string" && code.startsWith("#") ? code : undefined;
+  if (typeof code === "string" && code.startsWith("#")) return code;
+  return dataTypeErrorCode(cell);
+}
+
+/**
+ * The code of an error given as a data-type value, which a host passes when data types are on
+ * (Excel.ErrorCellValue: `{ type: "Error", basicValue: "#N/A", errorType: "NotAvailable" }`;
+ * learn.microsoft.com, "Use data types with custom functions in Excel").
+ */
+function dataTypeErrorCode(cell: object): string | undefined {
+  const { type, basicValue } = cell as { type?: unknown; basicValue?: unknown };
+  return type === "Error" && typeof basicValue === "string" && basicValue.startsWith("#")
+    ? basicValue
+    : undefined;
 }
 
 function isBlank(cell: unknown): boolean {
@@ -162,4 +175,72 @@ function gapOrRefusal(cell: unknown, index: number, describe: PositionNamer): nu
     invalid(`${where} holds ${cell ? "TRUE" : "FALSE"}; only numbers, blanks and #N/A are read`);
   }
   invalid(`${where} holds a value that is not a number; only numbers, blanks and #N/A are read`);
+}
+
+/**
+ * A series from a column of numbers with NaN at its gaps (a table column as the table reader
+ * keeps it): leading and trailing gaps trimmed, interior gaps in place. The values are a view of
+ * the column, not a copy, so a long column costs one presence byte a value more.
+ */
+export function seriesFromColumn(values: Float64Array, label: string): Series {
+  let first = 0;
+  let last = values.length;
+  while (first < last && Number.isNaN(values[first] as number)) first++;
+  while (last > first && Number.isNaN(values[last - 1] as number)) last--;
+  if (first === last) tooShort(`${seriesName(label)} has no values: give a column with numbers`);
+  const kept = values.subarray(first, last);
+  const present = new Uint8Array(kept.length);
+  let count = 0;
+  for (let i = 0; i < kept.length; i++) {
+    if (!Number.isNaN(kept[i] as number)) {
+      present[i] = 1;
+      count++;
+    }
+  }
+  return {
+    values: kept,
+    present,
+    label,
+    count,
+    gaps: kept.length - count,
+    start: first,
+    cells: values.length,
+  };
+}
+
+/** One column of a block: its series, or why it has none. */
+export interface BlockColumn {
+  readonly label: string;
+  /** The column's series, or undefined when it could not be read. */
+  readonly series: Series | undefined;
+  /** Why the column could not be read (undefined when it was). */
+  readonly refusal: EcholotError | undefined;
+}
+
+/**
+ * A block's columns, each read by the intake rules (a text first cell is its label). A column that
+ * cannot be read (empty, or holding text) keeps its place with the reason, so one bad column does
+ * not take the others down with it. Rows may be ragged; the widest row sets the columns.
+ */
+export function blockColumns(rows: readonly (readonly unknown[])[]): BlockColumn[] {
+  let width = 0;
+  for (const row of rows) width = Math.max(width, row.length);
+  const columns: BlockColumn[] = [];
+  for (let c = 0; c < width; c++) {
+    const cells = rows.map((r) => r[c]);
+    const head = cells[0];
+    const fallback = `column ${c + 1}`;
+    try {
+      const series = seriesFromValues(cells, {
+        label: fallback,
+        describePosition: (i) => `row ${i + 1}, column ${c + 1} of the block`,
+      });
+      columns.push({ label: series.label, series, refusal: undefined });
+    } catch (error) {
+      if (!(error instanceof EcholotError)) throw error;
+      const label = typeof head === "string" && head.trim() !== "" ? head.trim() : fallback;
+      columns.push({ label, series: undefined, refusal: error });
+    }
+  }
+  return columns;
 }

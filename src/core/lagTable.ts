@@ -8,7 +8,7 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { robustVariances, standardErrors } from "./bands";
-import { corridorCrossings, corridorLevels } from "./corridors";
+import { corridorCrossings, innerCorridor } from "./corridors";
 import { normalTwoSided } from "./distributions";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
 import { sidakAdjust } from "./multiplicity";
@@ -16,6 +16,7 @@ import { resolveLagOptions, type LagOptions, type ResolvedLagOptions } from "./o
 import { partialAutocorrelation } from "./partial";
 import {
   cumulativeJointTest,
+  type CumulativeJointTest,
   jointTest,
   jointTestAt,
   type JointTest,
@@ -24,7 +25,10 @@ import {
 import { centre, type Centred } from "./centre";
 import { squaredDeviationCorrelation } from "./squares";
 import type { Series } from "./types";
-import { judge, type Verdict, type VerdictLag } from "./verdict";
+import { untestedSeasonalLags } from "./defaultLags";
+import { chiSquareUpperTail } from "./distributions";
+import { judge, seasonalLags, type Verdict, type VerdictLag } from "./verdict";
+import { verdictLevels, type VerdictLevels } from "./verdictReference";
 
 export interface LagRow {
   readonly lag: number;
@@ -68,10 +72,15 @@ export interface LagTable extends ResolvedLagOptions {
   readonly autocovariance: Float64Array;
   /** Inner corridor ±z_{1−α/2}. */
   readonly innerLevel: number;
-  /** Outer corridor ±z_{1−a/2}, a = 1 − (1−α)^{1/K}. */
+  /** Outer corridor: |z_k| beyond it fires `structure` (the verdict's common level a*). */
   readonly outerLevel: number;
-  /** The level the joint test's χ² p is compared with for `structure` (the verdict's common level). */
+  /**
+   * The χ² p below which the joint test rejects (the χ² tail at the critical Q): the verdict's
+   * common level expressed on the textbook χ² scale, for reports that only have that scale.
+   */
   readonly jointLevel: number;
+  /** The reference, levels and the joint p the verdict used (verdictReference.ts). */
+  readonly levels: VerdictLevels;
   readonly rows: readonly LagRow[];
   readonly joint: JointTest;
   readonly falseAlarm: FalseAlarmNote;
@@ -85,8 +94,10 @@ export interface NoiseCheck extends ResolvedLagOptions {
   /** Values present. */
   readonly n: number;
   readonly joint: JointTest;
-  /** The level the joint test's χ² p is compared with for `structure` (the verdict's common level). */
+  /** The χ² p below which the joint test rejects (see LagTable). */
   readonly jointLevel: number;
+  /** The reference, levels and the joint p the verdict used (verdictReference.ts). */
+  readonly levels: VerdictLevels;
   readonly falseAlarm: FalseAlarmNote;
   readonly verdict: Verdict;
 }
@@ -101,16 +112,34 @@ interface Screen {
   readonly robust: Float64Array | undefined;
   readonly se: Float64Array;
   readonly innerLevel: number;
-  readonly outerLevel: number;
+  readonly joint: JointTest;
+  readonly levels: VerdictLevels;
   /** Lag k at index k−1: r_k, z_k and the two corridors. */
   readonly lags: readonly VerdictLag[];
   readonly tested: number;
   readonly beyondLags: readonly number[];
 }
 
-function screen(series: Series, options: LagOptions): Screen {
+function jointTestInput(
+  resolved: ResolvedLagOptions,
+  ac: Autocorrelation,
+  robust: Float64Array | undefined,
+): JointTestInput {
+  const { testKind: kind, fittedParams } = resolved;
+  const { n, correlation } = ac;
+  return robust === undefined
+    ? { kind, n, correlation, fittedParams }
+    : { kind, n, correlation, fittedParams, robustVariance: robust };
+}
+
+/** `joint` given when the caller has the cumulative test already (the lag table). */
+function screen(
+  series: Series,
+  options: LagOptions,
+  given?: (input: JointTestInput) => JointTest,
+): Screen {
   const resolved = resolveLagOptions(series, options);
-  const { maxLag: K, alpha, bandKind, testKind } = resolved;
+  const { maxLag: K, alpha, bandKind, testKind, season, fittedParams } = resolved;
   const subject: LagSubject = testKind === "squares" ? "squares" : "series";
   const ac =
     subject === "squares" ? squaredDeviationCorrelation(series, K) : autocorrelation(series, K);
@@ -118,9 +147,27 @@ function screen(series: Series, options: LagOptions): Screen {
   const needsRobust = bandKind === "robust" || testKind === "robust";
   const robust = needsRobust ? robustVariances(ac, K) : undefined;
   const se = standardErrors(bandKind, ac, K, robust);
-  const levels = corridorLevels(alpha, K);
-  const { innerLevel, outerLevel } = levels;
-  const { lags, tested, beyondLags } = corridorCrossings(ac.correlation, se, levels);
+  const innerLevel = innerCorridor(alpha);
+  const input = jointTestInput(resolved, ac, robust);
+  const joint = given === undefined ? jointTest(input) : given(input);
+  const levels = verdictLevels(
+    {
+      deviations: ac.deviations,
+      present: series.present,
+      spec: { n: ac.n, maxLag: K, bandKind, testKind, sumSquares: ac.sumSquares, pairs: ac.pairs },
+      alpha,
+      fittedParams,
+      innerLevel,
+      keyLags: [1, ...seasonalLags(season, K)],
+      q: joint.q,
+      df: joint.df,
+    },
+    [testKind, bandKind, String(K), String(alpha), String(season)],
+  );
+  const { lags, tested, beyondLags } = corridorCrossings(ac.correlation, se, {
+    innerLevel,
+    outerLevel: levels.outerLevel,
+  });
   return {
     resolved,
     subject,
@@ -129,22 +176,15 @@ function screen(series: Series, options: LagOptions): Screen {
     robust,
     se,
     innerLevel,
-    outerLevel,
+    joint,
+    levels,
     lags,
     tested,
     beyondLags,
   };
 }
 
-function jointTestInput(s: Screen): JointTestInput {
-  const { testKind: kind, fittedParams } = s.resolved;
-  const { n, correlation } = s.ac;
-  return s.robust === undefined
-    ? { kind, n, correlation, fittedParams }
-    : { kind, n, correlation, fittedParams, robustVariance: s.robust };
-}
-
-function conclude(s: Screen, joint: JointTest): { falseAlarm: FalseAlarmNote; verdict: Verdict } {
+function conclude(s: Screen): { falseAlarm: FalseAlarmNote; verdict: Verdict } {
   const { maxLag, alpha, season } = s.resolved;
   const falseAlarm = falseAlarmNote(s.tested, alpha, s.beyondLags);
   const verdict = judge({
@@ -153,11 +193,20 @@ function conclude(s: Screen, joint: JointTest): { falseAlarm: FalseAlarmNote; ve
     alpha,
     season,
     lags: s.lags,
-    joint,
+    joint: s.joint,
+    levels: s.levels,
     falseAlarm,
+    untestedSeasonal: untestedSeasonalLags(season, maxLag),
     subject: s.subject,
   });
   return { falseAlarm, verdict };
+}
+
+/** The χ² p of the critical Q: below it the joint test rejects. */
+function jointLevelOf(s: Screen): number {
+  const { criticalQ } = s.levels;
+  if (!Number.isFinite(criticalQ)) return 0;
+  return chiSquareUpperTail(criticalQ, s.joint.df);
 }
 
 /**
@@ -167,8 +216,8 @@ function conclude(s: Screen, joint: JointTest): { falseAlarm: FalseAlarmNote; ve
  */
 export function noiseCheck(series: Series, options: LagOptions = {}): NoiseCheck {
   const s = screen(series, options);
-  const joint = jointTest(jointTestInput(s));
-  const { falseAlarm, verdict } = conclude(s, joint);
+  const { joint } = s;
+  const { falseAlarm, verdict } = conclude(s);
   const { maxLag, alpha, season, fittedParams, bandKind, testKind } = s.resolved;
   return {
     maxLag,
@@ -181,7 +230,8 @@ export function noiseCheck(series: Series, options: LagOptions = {}): NoiseCheck
     subject: s.subject,
     n: s.ac.n,
     joint,
-    jointLevel: alpha,
+    jointLevel: jointLevelOf(s),
+    levels: s.levels,
     falseAlarm,
     verdict,
   };
@@ -192,11 +242,16 @@ export function noiseCheck(series: Series, options: LagOptions = {}): NoiseCheck
  * volatility clustering); mean and variance always describe the series itself.
  */
 export function lagTable(series: Series, options: LagOptions = {}): LagTable {
-  const s = screen(series, options);
+  let cumulative: CumulativeJointTest | undefined;
+  const s = screen(series, options, (input) => {
+    cumulative = cumulativeJointTest(input);
+    return jointTestAt(input.kind, cumulative);
+  });
+  if (cumulative === undefined) throw new Error("the lag table's cumulative test was not computed");
   const { maxLag: K, alpha, season, fittedParams, bandKind, testKind } = s.resolved;
-  const { ac, level, se, innerLevel, outerLevel } = s;
+  const { ac, level, se, innerLevel, joint } = s;
+  const outerLevel = s.levels.outerLevel;
   const partials = partialAutocorrelation(ac.correlation);
-  const cumulative = cumulativeJointTest(jointTestInput(s));
   const rows: LagRow[] = [];
   for (let k = 1; k <= K; k++) {
     const { correlation, z, beyond, outer } = s.lags[k - 1] as VerdictLag;
@@ -218,8 +273,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
       jointP: cumulative.p[k - 1] as number,
     });
   }
-  const joint = jointTestAt(testKind, cumulative);
-  const { falseAlarm, verdict } = conclude(s, joint);
+  const { falseAlarm, verdict } = conclude(s);
   // Fields listed one by one (not spread from the options): the spread builds a slow object.
   return {
     maxLag: K,
@@ -238,7 +292,8 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
     autocovariance: ac.autocovariance,
     innerLevel,
     outerLevel,
-    jointLevel: alpha,
+    jointLevel: jointLevelOf(s),
+    levels: s.levels,
     rows,
     joint,
     falseAlarm,

@@ -13,10 +13,12 @@
  * Biometrika 65:297–303) small-sample factor, so for h = 1 (C = I) Q is exactly the Ljung–Box
  * statistic. C is the Gram matrix of shifted copies of (ρ_{1−h}, …, ρ_{h−1}), positive definite
  * because ρ_0 = 1. A lag with no available pair (NaN r) is left out, with its row and column of C.
- * The system C x = r̃ is solved by least squares (leastSquares.ts). Cost O(K³), K ≤ n.
+ * Q = ‖L⁻¹ r̃‖² with C = L Lᵀ by Cholesky (Golub & Van Loan, *Matrix Computations*, §4.2), in
+ * buffers the caller may reuse (the audit's Monte Carlo reference computes Q for every draw).
+ * Cost O(K³), K ≤ n.
  */
 import { chiSquareUpperTail } from "./distributions";
-import { leastSquares } from "./leastSquares";
+import { invalid } from "./errors";
 
 export interface LaterLagsTest {
   /** h, the first lag tested. */
@@ -37,6 +39,7 @@ export function laterLagsTest(
   correlation: ArrayLike<number>,
   n: number,
   firstLag: number,
+  buffers: LaterLagsBuffers = laterLagsBuffers(correlation.length - 1),
 ): LaterLagsTest {
   const maxLag = correlation.length - 1;
   const h = firstLag;
@@ -54,20 +57,68 @@ export function laterLagsTest(
     c[s] = sum;
   }
 
-  const lags: number[] = [];
-  for (let k = h; k <= maxLag; k++) if (Number.isFinite(correlation[k] as number)) lags.push(k);
-  const m = lags.length;
+  const { q, m } = laterLagsStatistic(correlation, n, h, c, buffers);
   if (m === 0) return { firstLag: h, maxLag, q: NaN, df: 0, p: NaN };
-  const scaled = new Float64Array(m);
-  const matrix = new Float64Array(m * m);
-  lags.forEach((k, i) => {
-    scaled[i] = (correlation[k] as number) * Math.sqrt((n * (n + 2)) / (n - k));
-    lags.forEach((l, j) => {
-      matrix[j * m + i] = c[Math.abs(l - k)] as number;
-    });
-  });
-  const x = leastSquares(matrix, m, m, scaled).coefficients;
-  let q = 0;
-  for (let i = 0; i < m; i++) q += (scaled[i] as number) * (x[i] as number);
   return { firstLag: h, maxLag, q, df: m, p: chiSquareUpperTail(q, m) };
+}
+
+/** Work space for `laterLagsStatistic` with up to K tested lags. */
+export interface LaterLagsBuffers {
+  readonly lags: Int32Array;
+  readonly scaled: Float64Array;
+  readonly factor: Float64Array;
+}
+
+export function laterLagsBuffers(maxLag: number): LaterLagsBuffers {
+  return {
+    lags: new Int32Array(maxLag + 1),
+    scaled: new Float64Array(maxLag + 1),
+    factor: new Float64Array((maxLag + 1) * (maxLag + 1)),
+  };
+}
+
+/**
+ * Q = r̃ᵀ C⁻¹ r̃ over the lags h..K with a pair (m of them), C from the covariances c_s.
+ * Cholesky in place; a C that is not positive definite (impossible for a Gram matrix with
+ * c_0 ≥ 1, barring rounding) is refused.
+ */
+export function laterLagsStatistic(
+  correlation: ArrayLike<number>,
+  n: number,
+  h: number,
+  c: Float64Array,
+  buffers: LaterLagsBuffers,
+): { q: number; m: number } {
+  const maxLag = correlation.length - 1;
+  const { lags, scaled, factor } = buffers;
+  let m = 0;
+  for (let k = h; k <= maxLag; k++) {
+    const r = correlation[k] as number;
+    if (!Number.isFinite(r)) continue;
+    lags[m] = k;
+    scaled[m] = r * Math.sqrt((n * (n + 2)) / (n - k));
+    m++;
+  }
+  // Lower triangle of C = L Lᵀ, row by row.
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j <= i; j++) {
+      let sum = c[Math.abs((lags[i] as number) - (lags[j] as number))] as number;
+      for (let p = 0; p < j; p++)
+        sum -= (factor[i * m + p] as number) * (factor[j * m + p] as number);
+      if (i === j) {
+        if (!(sum > 0)) invalid("the later-lags covariance is not positive definite");
+        factor[i * m + i] = Math.sqrt(sum);
+      } else factor[i * m + j] = sum / (factor[j * m + j] as number);
+    }
+  }
+  // Forward substitution L y = r̃; Q = ‖y‖².
+  let q = 0;
+  for (let i = 0; i < m; i++) {
+    let y = scaled[i] as number;
+    for (let p = 0; p < i; p++) y -= (factor[i * m + p] as number) * (scaled[p] as number);
+    y /= factor[i * m + i] as number;
+    scaled[i] = y;
+    q += y * y;
+  }
+  return { q, m };
 }

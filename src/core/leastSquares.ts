@@ -20,6 +20,12 @@ export interface LeastSquaresFit {
   readonly rotatedResponse: Float64Array;
   /** Σ_{i≥columns} c_i². */
   readonly residualSumSquares: number;
+  /**
+   * R, columns × columns upper triangular, column-major (R_jk at `triangle[k * columns + j]`,
+   * j ≤ k): with `rotatedResponse[0..columns)` it stands for every row fitted so far, so a long
+   * regression can be fitted block by block (stack R and c over the next block's rows).
+   */
+  readonly triangle: Float64Array;
 }
 
 const RANK_TOLERANCE = 1e-12;
@@ -88,5 +94,9 @@ export function leastSquares(
   }
   const residual = new CompensatedSum();
   for (let i = columns; i < rows; i++) residual.add((c[i] as number) ** 2);
-  return { coefficients, rotatedResponse: c, residualSumSquares: residual.value };
+  const triangle = new Float64Array(columns * columns);
+  for (let k = 0; k < columns; k++) {
+    for (let j = 0; j <= k; j++) triangle[k * columns + j] = a[k * rows + j] as number;
+  }
+  return { coefficients, rotatedResponse: c, residualSumSquares: residual.value, triangle };
 }

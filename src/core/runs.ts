@@ -11,7 +11,7 @@
  * Cost O(n log n) for the median.
  */
 import { normalTwoSided } from "./distributions";
-import { invalid, seriesName } from "./errors";
+import { invalid, seriesName, tooShort } from "./errors";
 import { requireValues } from "./options";
 import type { Series } from "./types";
 
@@ -35,10 +35,10 @@ export interface RunsCheck extends RunsCount {
 }
 
 /**
- * The runs test of a two-valued sequence in order: `sides[i]` is true for one kind (above the
+ * The runs test of a two-valued sequence in order: `sides[i]` is true (or 1) for one kind (above the
  * median, heads) and false for the other.
  */
-export function runsTest(sides: readonly boolean[]): RunsCount {
+export function runsTest(sides: ArrayLike<boolean | number>): RunsCount {
   let above = 0;
   let runs = 0;
   for (let i = 0; i < sides.length; i++) {
@@ -55,27 +55,42 @@ export function runsTest(sides: readonly boolean[]): RunsCount {
   const product = 2 * above * below;
   const expected = product / total + 1;
   const variance = (product * (product - total)) / (total * total * (total - 1));
+  if (!(variance > 0)) {
+    tooShort(
+      `a runs test needs at least 3 values off the median; got ${above} above and ${below} below, whose number of runs cannot vary`,
+    );
+  }
   const sd = Math.sqrt(variance);
   const z = (runs - expected) / sd;
   return { above, below, runs, expected, sd, z, p: normalTwoSided(z) };
 }
 
+/** The median of the values present, from a typed copy (sorted numerically, 8 bytes a value). */
+function medianOf(series: Series): number {
+  const { values, present } = series;
+  const sorted = new Float64Array(series.count);
+  for (let t = 0, k = 0; t < values.length; t++) {
+    if (present[t] === 1) sorted[k++] = values[t] as number;
+  }
+  sorted.sort();
+  const middle = sorted.length >> 1;
+  return sorted.length % 2 === 1
+    ? (sorted[middle] as number)
+    : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
+}
+
 export function runsCheck(series: Series): RunsCheck {
   requireValues(series, 3, "a runs test");
   const { values, present } = series;
-  const sorted: number[] = [];
-  for (let t = 0; t < values.length; t++) if (present[t] === 1) sorted.push(values[t] as number);
-  sorted.sort((a, b) => a - b);
-  const middle = sorted.length >> 1;
-  const median =
-    sorted.length % 2 === 1
-      ? (sorted[middle] as number)
-      : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
-  const sides: boolean[] = [];
+  const median = medianOf(series);
+  // One byte a value: 1 above the median, 0 below; values equal to it are left out.
+  const all = new Uint8Array(series.count);
+  let m = 0;
   for (let t = 0; t < values.length; t++) {
     const x = values[t] as number;
-    if (present[t] === 1 && x !== median) sides.push(x > median);
+    if (present[t] === 1 && x !== median) all[m++] = x > median ? 1 : 0;
   }
+  const sides = all.subarray(0, m);
   if (sides.length < 2 || sides.every((s) => s === sides[0])) {
     invalid(
       `${seriesName(series.label)} has values on only one side of its median ${median} (the others equal it), so its runs cannot be counted`,

@@ -2,19 +2,31 @@
  * The verdict: one word and a reason sentence that always carries the false-alarm note.
  *
  * - `short`: fewer than 20 values, or K above n/4 — the figures are still shown;
- * - `structure`: the joint test over K lags rejects at α, or a single lag lies beyond the Šidák
- *   corridor for all K lags, |z_k| > z_{1−a/2} with a = 1 − (1−α)^{1/K};
- * - `watch`: neither, but lag 1 or a seasonal lag (m, 2m) lies beyond its band, or more lags lie
- *   beyond the band than chance explains (binomial upper tail below α);
+ * - `structure`: the joint test over K lags rejects, or a single lag lies beyond the outer
+ *   corridor — both at one common level a*, chosen so that together they fire with probability
+ *   alpha for pure noise (verdictReference.ts);
+ * - `watch`: neither, but lag 1 or a seasonal lag (m, 2m) lies beyond the watch line, or more lags
+ *   lie beyond the inner corridor than chance explains — one rule at level w*, calibrated the same
+ *   way, so that it fires for at most alpha of pure noise;
  * - `clear`: otherwise.
- * The thresholds 20 and n/4 are common practice (no source): below them the χ² reference of the
- * joint tests is poor. The joint test is the one chosen by `testKind` (Ljung–Box by default).
+ * The thresholds 20 and n/4 are common practice (no source): below them too few pairs remain per
+ * lag for a verdict to mean much. The joint test is the one chosen by `testKind` (Ljung–Box by
+ * default). The levels and the joint p come in with the input; this file decides the word and
+ * writes the reason.
  */
 import type { FalseAlarmNote } from "./falseAlarms";
-import { formatLagList, formatLevel, formatNumber, formatP, formatPercent } from "./format";
+import { normalQuantile, normalTwoSided } from "./distributions";
+import {
+  formatLagList,
+  formatLevel,
+  formatNumber,
+  formatPercent,
+  referencedPPhrase,
+} from "./format";
 import type { JointTest } from "./portmanteau";
 import { TEST_NAMES } from "./portmanteau";
 import type { VerdictWord } from "./types";
+import type { VerdictLevels } from "./verdictReference";
 
 export const MIN_VALUES_TO_JUDGE = 20;
 
@@ -24,7 +36,7 @@ export interface VerdictLag {
   readonly z: number;
   /** Beyond the inner corridor ±z_{1−α/2} (its own band). */
   readonly beyond: boolean;
-  /** Beyond the outer (Šidák) corridor. */
+  /** Beyond the outer corridor (the all-lags corridor at the verdict's common level). */
   readonly outer: boolean;
 }
 
@@ -35,7 +47,11 @@ export interface VerdictInput {
   readonly season: number | null;
   readonly lags: readonly VerdictLag[];
   readonly joint: JointTest;
+  /** The levels the rules are judged at and the joint p they use (verdictReference.ts). */
+  readonly levels: VerdictLevels;
   readonly falseAlarm: FalseAlarmNote;
+  /** Seasonal lags (m, 2m) that lie beyond K and were not tested; the reason says so. */
+  readonly untestedSeasonal?: readonly number[];
   /** "squares" when the lags are those of the squared deviations (volatility clustering). */
   readonly subject?: "series" | "squares";
   /**
@@ -75,21 +91,25 @@ export function falseAlarmSentence(note: FalseAlarmNote, alpha: number): string 
 }
 
 export function judge(input: VerdictInput): Verdict {
-  const { n, maxLag, alpha, joint, falseAlarm, lags } = input;
+  const { n, maxLag, alpha, joint, falseAlarm, lags, levels } = input;
   const firstLag = input.firstLag ?? 1;
   const seasonal = seasonalLags(input.season, maxLag).filter((lag) => lag >= firstLag);
-  const beyondLag = (lag: number) => lags[lag - 1]?.beyond === true;
-  const triggers = {
-    jointRejects: joint.p < alpha,
-    outerLags: lags.filter((l) => l.outer && l.lag >= firstLag).map((l) => l.lag),
-    lagOne: beyondLag(firstLag),
-    seasonalLags: seasonal.filter(beyondLag),
-    excessCrossings: falseAlarm.beyond > 0 && falseAlarm.chance < alpha,
+  const pastWatchLine = (lag: number) => {
+    const z = lags[lag - 1]?.z;
+    return z !== undefined && normalTwoSided(z) < levels.watchLevel;
   };
-  const note = falseAlarmSentence(falseAlarm, alpha);
+  const triggers = {
+    jointRejects: levels.jointRejects,
+    outerLags: lags.filter((l) => l.outer && l.lag >= firstLag).map((l) => l.lag),
+    lagOne: pastWatchLine(firstLag),
+    seasonalLags: seasonal.filter(pastWatchLine),
+    excessCrossings: falseAlarm.beyond > 0 && falseAlarm.chance < levels.watchLevel,
+  };
+  const note = [untestedNote(input), falseAlarmSentence(falseAlarm, alpha)].join("");
   const testName = input.testName ?? TEST_NAMES[joint.test];
   const span = firstLag === 1 ? `${maxLag} lags` : `lags ${firstLag}–${maxLag}`;
-  const jointFigures = `Q = ${formatNumber(joint.q, 4)}, df ${joint.df}, p = ${formatP(joint.p)}`;
+  const jointP = referencedPPhrase(levels.jointP);
+  const jointFigures = `Q = ${formatNumber(joint.q, 4)}, df ${joint.df}, ${jointP}`;
 
   if (n < MIN_VALUES_TO_JUDGE) {
     return {
@@ -112,6 +132,7 @@ export function judge(input: VerdictInput): Verdict {
       ? `lag ${lag}`
       : `lag ${lag} (r = ${formatNumber(row.correlation, 3)})`;
   };
+  const levelNote = `The joint test and the all-lags corridor together are set to fire for ${formatLevel(alpha)} of pure noise; each is judged at ${formatLevel(levels.structureLevel)}.`;
   const parts: string[] = [];
   if (triggers.jointRejects || triggers.outerLags.length > 0) {
     if (triggers.jointRejects) {
@@ -132,30 +153,45 @@ export function judge(input: VerdictInput): Verdict {
         `${capitalise(which)} ${verb} beyond the corridor that holds for all ${maxLag} lags together.`,
       );
     }
+    parts.push(levelNote);
     return { word: "structure", reason: `${parts.join(" ")} ${note}`, triggers };
   }
 
   if (triggers.lagOne || triggers.seasonalLags.length > 0 || triggers.excessCrossings) {
     const signs: string[] = [];
-    if (triggers.lagOne) signs.push(`${describeLag(firstLag)} crosses its band`);
+    if (triggers.lagOne) signs.push(`${describeLag(firstLag)} lies beyond the watch line`);
     for (const lag of triggers.seasonalLags)
-      signs.push(`seasonal ${describeLag(lag)} crosses its band`);
+      signs.push(`seasonal ${describeLag(lag)} lies beyond the watch line`);
     if (triggers.excessCrossings) signs.push("more lags cross the band than chance explains");
     parts.push(
-      `${capitalise(signs.join("; "))}, though ${testName} over ${span} does not reject (p = ${formatP(joint.p)}).`,
+      `${capitalise(signs.join("; "))}, though ${testName} over ${span} does not reject (${jointP}).`,
+    );
+    parts.push(
+      `The watch line (|z| > ${formatNumber(watchLine(levels.watchLevel), 3)}) is set so that lag ${firstLag}, the seasonal lags and the crossing count together raise watch for at most ${formatLevel(alpha)} of pure noise.`,
     );
     return { word: "watch", reason: `${parts.join(" ")} ${note}`, triggers };
   }
 
-  parts.push(
-    `No leftover structure found: ${testName} over ${span} gives p = ${formatP(joint.p)}.`,
-  );
+  parts.push(`No leftover structure found: ${testName} over ${span} gives ${jointP}.`);
   if (falseAlarm.beyond === 1) {
     parts.push(
       `${capitalise(describeLag(falseAlarm.beyondLags[0] as number))} crosses its band alone; a lone lag that is neither lag ${firstLag} nor seasonal is weak evidence.`,
     );
   }
   return { word: "clear", reason: `${parts.join(" ")} ${note}`, triggers };
+}
+
+/** z of the watch line: |z| beyond it has a two-sided p below w*. */
+export function watchLine(watchLevel: number): number {
+  return normalQuantile(1 - watchLevel / 2);
+}
+
+/** "Seasonal lag 12 not tested: 40 values allow at most 10 lags. " or "". */
+function untestedNote(input: VerdictInput): string {
+  const untested = input.untestedSeasonal ?? [];
+  if (untested.length === 0) return "";
+  const which = untested.length === 1 ? `lag ${untested[0]}` : `lags ${untested.join(" and ")}`;
+  return `Seasonal ${which} not tested: ${input.maxLag} lags tested, and ${input.n} values allow at most ${Math.floor(input.n / 4)} for a verdict. `;
 }
 
 function capitalise(text: string): string {

@@ -18,7 +18,7 @@
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
 import { invalid, isEcholotError, seriesName, tooShort } from "./errors";
-import { leastSquares } from "./leastSquares";
+import { leastSquares, type LeastSquaresFit } from "./leastSquares";
 import { resolveAlpha, resolveLagCountOrDefault, requireValues } from "./options";
 import { cumulativeJointTest, jointTestAt } from "./portmanteau";
 import { squaredDeviationCorrelation } from "./squares";
@@ -89,50 +89,85 @@ export function volatilityCheck(series: Series, options: VolatilityOptions = {})
 }
 
 /** The LM regression of s_t on 1, s_{t−1..t−q}: its usable rows T and R². */
+/** Rows per block of the regression: its memory stays O(block·q), whatever the length. */
+const BLOCK_ROWS = 8192;
+
+/**
+ * Engle's regression fitted block by block (a stacked Householder update: each block's rows
+ * are fitted together with the R and rotated response carried from the blocks before, Golub &
+ * Van Loan §5.3), so a series of any length needs memory for one block only. The residual sums
+ * of squares of the blocks add up: their rotated parts are orthogonal to what is carried.
+ */
 function engleRegression(series: Series, q: number): { rows: number; rSquared: number } {
   const { deviations } = centre(series);
   const { present } = series;
   const length = present.length;
-  const usable: number[] = [];
-  for (let t = q; t < length; t++) {
-    let complete = true;
-    for (let j = 0; j <= q && complete; j++) complete = present[t - j] === 1;
-    if (complete) usable.push(t);
-  }
-  const rows = usable.length;
   const columns = q + 1;
+  const usable = (t: number) => {
+    for (let j = 0; j <= q; j++) if (present[t - j] !== 1) return false;
+    return true;
+  };
+  let rows = 0;
+  for (let t = q; t < length; t++) if (usable(t)) rows++;
   if (rows < columns + 1) {
     tooShort(
       `Engle's LM test with ${q} lag${q === 1 ? "" : "s"} needs at least ${columns + 1} rows with the value and its ${q} predecessors present; the series has ${rows}: use fewer lags`,
     );
   }
-  const design = new Float64Array(rows * columns);
-  const response = new Float64Array(rows);
-  usable.forEach((t, i) => {
-    const d = deviations[t] as number;
-    response[i] = d * d;
-    design[i] = 1;
-    for (let j = 1; j <= q; j++) {
-      const lagged = deviations[t - j] as number;
-      design[j * rows + i] = lagged * lagged;
+  const capacity = columns + BLOCK_ROWS;
+  const design = new Float64Array(capacity * columns);
+  const response = new Float64Array(capacity);
+  let triangle: Float64Array | undefined;
+  const rotated = new Float64Array(columns);
+  const residual = new CompensatedSum();
+  let t = q;
+  while (t < length) {
+    // The carried R and c first, then the next block's usable rows.
+    const carried = triangle === undefined ? 0 : columns;
+    const block: number[] = [];
+    for (; t < length && block.length < BLOCK_ROWS; t++) if (usable(t)) block.push(t);
+    if (block.length === 0) break;
+    const height = carried + block.length;
+    for (let j = 0; j < columns; j++) {
+      for (let i = 0; i < carried; i++) {
+        design[j * height + i] =
+          i <= j ? ((triangle as Float64Array)[j * columns + i] as number) : 0;
+      }
     }
-  });
-  let rotated: Float64Array;
-  try {
-    rotated = leastSquares(design, rows, columns, response).rotatedResponse;
-  } catch (error) {
-    if (!isEcholotError(error)) throw error;
-    invalid(
-      `the squared deviations of ${seriesName(series.label)} do not vary enough over the usable rows for Engle's LM test (they are constant or repeat exactly); use fewer lags or check the data`,
-    );
+    for (let i = 0; i < carried; i++) response[i] = rotated[i] as number;
+    block.forEach((row, b) => {
+      const i = carried + b;
+      const d = deviations[row] as number;
+      response[i] = d * d;
+      design[i] = 1;
+      for (let j = 1; j <= q; j++) {
+        const lagged = deviations[row - j] as number;
+        design[j * height + i] = lagged * lagged;
+      }
+    });
+    let fit: LeastSquaresFit;
+    try {
+      fit = leastSquares(
+        design.subarray(0, height * columns),
+        height,
+        columns,
+        response.subarray(0, height),
+      );
+    } catch (error) {
+      if (!isEcholotError(error)) throw error;
+      invalid(
+        `the squared deviations of ${seriesName(series.label)} do not vary enough over the usable rows for Engle's LM test (they are constant or repeat exactly); use fewer lags or check the data`,
+      );
+    }
+    triangle = fit.triangle;
+    rotated.set(fit.rotatedResponse.subarray(0, columns));
+    residual.add(fit.residualSumSquares);
   }
   const explained = new CompensatedSum();
+  for (let i = 1; i < columns; i++) explained.add((rotated[i] as number) ** 2);
   const total = new CompensatedSum();
-  for (let i = 1; i < rows; i++) {
-    const c2 = (rotated[i] as number) ** 2;
-    total.add(c2);
-    if (i < columns) explained.add(c2);
-  }
+  total.add(explained.value);
+  total.add(residual.value);
   if (!(total.value > 0)) {
     invalid(
       `the squared deviations of ${seriesName(series.label)} are constant, so their dependence is undefined`,

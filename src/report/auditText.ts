@@ -11,7 +11,7 @@ import { figureCell, numberCell, pCell } from "./tableCells";
 
 export function auditText(batch: AuditBatch, horizon: number, season: number | null): string {
   const { alpha } = batch;
-  const width = Math.max(6, ...batch.items.map((item) => item.label.length));
+  const width = batch.items.reduce((w, item) => Math.max(w, item.label.length), 6);
   const first = batch.items
     .map((item) => item.audit)
     .find((audit): audit is ForecastAudit => audit !== null);
@@ -26,14 +26,17 @@ export function auditText(batch: AuditBatch, horizon: number, season: number | n
   if (first !== undefined) {
     const audits = batch.items.flatMap((item) => (item.audit === null ? [] : [item.audit]));
     const spread = (pick: (audit: ForecastAudit) => number) => {
-      const values = audits.map(pick);
-      const lo = Math.min(...values);
-      const hi = Math.max(...values);
+      let lo = Infinity;
+      let hi = -Infinity;
+      for (const audit of audits) {
+        lo = Math.min(lo, pick(audit));
+        hi = Math.max(hi, pick(audit));
+      }
       return lo === hi ? String(lo) : `${lo}–${hi}`;
     };
     const test = horizon === 1 ? "Ljung–Box" : `Ljung–Box adjusted for the ${horizon}-step horizon`;
     lines.push(
-      `dependence: joint test of lags ${horizon} to ${spread((a) => a.maxLag)} (${test}); bias: Newey–West standard error over ${spread((a) => a.bias.hacLags)} lags (at least horizon − 1)`,
+      `dependence: joint test of lags ${horizon} to ${spread((a) => a.maxLag)} (${test}); bias: corrected t with the long-run variance over lags 0–${horizon - 1}, against t with n − 1 df; dependence p by Monte Carlo under the fitted MA(${horizon - 1}) null`,
     );
   }
   lines.push("");
@@ -90,14 +93,14 @@ function row(item: AuditBatchItem, width: number, horizon: number): string {
     String(audit.n).padStart(6),
     figureCell(bias.mean, 4, 11),
     figureCell(bias.se, 3, 8),
-    numberCell(bias.t, 2, 7),
+    numberCell(bias.tCorrected, 2, 7),
     pCell(bias.p, 8),
     pCell(item.biasQValue, 8),
     expected,
     `${dependenceTest.firstLag}–${dependenceTest.maxLag}`.padStart(5),
     numberCell(dependenceTest.q, 2, 8),
     String(dependenceTest.df).padStart(3),
-    pCell(dependenceTest.p, 8),
+    pCell(audit.levels.jointP.p, 8),
     pCell(item.dependenceQValue, 8),
     ` ${badge.shape} ${badge.word}`,
   ].join(" ");

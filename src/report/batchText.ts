@@ -16,7 +16,7 @@ export interface BatchTextContext {
 
 export function batchText(batch: BatchCheck, context: BatchTextContext): string {
   const { alpha } = batch;
-  const width = Math.max(6, ...batch.rows.map((row) => row.label.length));
+  const width = batch.rows.reduce((w, row) => Math.max(w, row.label.length), 6);
   const order = rowsByQValue(batch);
   const lines: string[] = [];
   lines.push(

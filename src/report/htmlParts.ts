@@ -4,19 +4,13 @@
  * explanation. Every text is escaped; colours come from the palette as SVG presentation
  * attributes, so the fragments need no inline style (the pane's CSP forbids it).
  */
-import {
-  formatNumber,
-  formatP,
-  TEST_NAMES,
-  type BatchCheck,
-  type LagTable,
-  type VerdictWord,
-} from "../core";
+import { formatNumber, formatP, type BatchCheck, type LagTable, type VerdictWord } from "../core";
 import { rowsByQValue } from "./batchOrder";
 import { escapeMarkup } from "./escape";
 import type { Explanation } from "./explain";
-import { lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
-import { PALETTE, ZONE_COLOURS, type Zone } from "./palette";
+import { jointTestName, lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
+import { PALETTE, ZONE_COLOURS, ZONE_SHORT, type Zone } from "./palette";
+import { sideFindings, type SideChecks } from "./sideChecksText";
 import { element, figure, signed, textElement } from "./svg";
 import { BADGES } from "./verdictBadge";
 
@@ -57,13 +51,14 @@ export function badgeHtml(word: VerdictWord): string {
   );
 }
 
-const ZONE_SHORT = { inside: "inside", between: "between", beyond: "beyond", none: "no pairs" };
-
 function pCell(p: number): string {
   return textElement("td", {}, Number.isNaN(p) ? "—" : formatP(p));
 }
 
-/** The chart's figures as a table: the text alternative that sits under each chart. */
+/**
+ * The chart's figures as a table: the text alternative that sits under each chart. Per lag only:
+ * the joint test over lags 1..k has its own table (`jointSpanTableHtml`).
+ */
 export function figuresTableHtml(table: LagTable, view: ChartView): string {
   const points = lagPoints(table, view);
   const withTests = view !== "partial";
@@ -71,8 +66,8 @@ export function figuresTableHtml(table: LagTable, view: ChartView): string {
     "lag",
     view === "partial" ? "partial" : "r",
     "z",
-    ...(withTests ? ["p (this lag)", `p (all ${table.maxLag} lags)`, "p (joint, lags 1…k)"] : []),
     "corridor",
+    ...(withTests ? ["p (this lag)", `p (Šidák, ${table.maxLag} lags)`] : []),
   ];
   const head = element(
     "tr",
@@ -86,19 +81,70 @@ export function figuresTableHtml(table: LagTable, view: ChartView): string {
         textElement("th", { scope: "row" }, String(p.lag)),
         textElement("td", {}, signed(p.value, 4)),
         textElement("td", {}, signed(p.z, 3)),
-        ...(withTests && row !== undefined
-          ? [pCell(row.pLag), pCell(row.pSidak), pCell(row.jointP)]
-          : []),
         textElement("td", { class: `zone-${p.zone}` }, ZONE_SHORT[p.zone]),
+        ...(withTests && row !== undefined ? [pCell(row.pLag), pCell(row.pSidak)] : []),
       ];
       return element("tr", {}, cells.join(""));
     })
     .join("");
-  const caption = `${VIEW_QUANTITIES[view]}, lags 1–${table.maxLag}; corridors ±${figure(table.innerLevel, 3)} (one lag) and ±${figure(table.outerLevel, 3)} (all lags)${withTests ? `; joint test ${TEST_NAMES[table.testKind]}` : ""}`;
+  const caption = `${VIEW_QUANTITIES[view]}, lags 1–${table.maxLag}; corridors ±${figure(table.innerLevel, 3)} (one lag) and ±${figure(table.outerLevel, 3)} (all lags)`;
   return element(
     "table",
     { class: "figures" },
     `${textElement("caption", {}, caption)}<thead>${head}</thead><tbody>${body}</tbody>`,
+  );
+}
+
+/** The joint test by lag span as a table: the ribbon's figures, one row per k. */
+export function jointSpanTableHtml(table: LagTable): string {
+  const head = element(
+    "tr",
+    {},
+    ["lags", "Q", "df", "p"].map((h) => textElement("th", { scope: "col" }, h)).join(""),
+  );
+  const body = table.rows
+    .map((row) =>
+      element(
+        "tr",
+        { class: row.lag === table.maxLag ? "chosen" : undefined },
+        [
+          textElement("th", { scope: "row" }, `1–${row.lag}`),
+          textElement("td", {}, Number.isNaN(row.jointP) ? "—" : formatNumber(row.jointQ, 4)),
+          textElement("td", {}, Number.isNaN(row.jointP) ? "—" : String(row.jointDf)),
+          pCell(row.jointP),
+        ].join(""),
+      ),
+    )
+    .join("");
+  const caption = `Joint test by lag span: ${jointTestName(table)} over lags 1..k; the verdict reads k = ${table.maxLag}`;
+  return element(
+    "table",
+    { class: "figures spans" },
+    `${textElement("caption", {}, caption)}<thead>${head}</thead><tbody>${body}</tbody>`,
+  );
+}
+
+/** The side checks as a table: each check, whether it flags, and its finding in words. */
+export function sideChecksHtml(checks: SideChecks): string {
+  const rows = sideFindings(checks)
+    .map(({ name, finding }) => {
+      const flag = typeof finding === "string" ? "not computed" : finding.flagged ? "flag" : "ok";
+      const text = typeof finding === "string" ? finding : finding.text;
+      return element(
+        "tr",
+        { class: `side-${flag === "flag" ? "flag" : "ok"}` },
+        [
+          textElement("th", { scope: "row" }, name),
+          textElement("td", { class: "side-word" }, flag),
+          textElement("td", { class: "side-text" }, text),
+        ].join(""),
+      );
+    })
+    .join("");
+  return element(
+    "table",
+    { class: "side-checks" },
+    `${textElement("caption", {}, `Side checks at alpha ${formatNumber(checks.alpha, 3)}`)}<tbody>${rows}</tbody>`,
   );
 }
 
@@ -155,7 +201,7 @@ export function zoneLegendHtml(table: LagTable): string {
             width: 10,
             height: 12,
             fill: PALETTE.seasonalTint,
-            stroke: "#C9D9E4",
+            stroke: PALETTE.seasonalEdge,
           }),
         ) + escapeMarkup(`seasonal lags m = ${table.season}, 2m = ${2 * table.season}`),
       ),

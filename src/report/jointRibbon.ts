@@ -1,13 +1,19 @@
 /**
  * The joint-test ribbon as an SVG string: one cell per k = 1..K, under the evidence chart's lag
- * columns, filled by the p-value of the joint test over lags 1..k. At or above alpha a cell is
- * neutral; below alpha it is vermillion, deeper as −log10 p grows (full strength at p = 1e-6, or
- * at twice −log10 alpha when alpha is smaller still). The chosen K, the test the verdict uses, is
- * outlined. Pure; coordinates rounded; text escaped.
+ * columns, holding the χ² p-value of the joint test over lags 1..k (the verdict's own p for K, by
+ * permutation where it uses one, is in the chart's caption). At or above alpha a cell is
+ * neutral: a light fill inside a solid outline. Below alpha it is vermillion, deeper as −log10 p
+ * grows, from #D55E00 at alpha to the palette's deepest shade at full strength (p = 1e-6, or twice
+ * −log10 alpha when alpha is smaller still) — darker, never lighter, so every filled cell keeps 3:1
+ * against the page. The chosen K, the test the verdict uses, is outlined in ink. A key under the
+ * cells says all this in words. The ribbon shows the joint test of the table it is given, so the
+ * squared deviations' table gives its own test (McLeod–Li). Pure; coordinates rounded; text
+ * escaped.
  */
 import { scaleLinear } from "d3-scale";
-import { formatNumber, formatP, TEST_NAMES, type LagTable } from "../core";
-import { lagColumns, lagFrame } from "./evidenceChart";
+import { formatNumber, formatP, type LagTable } from "../core";
+import { CHART_TEXT_PX, lagColumns, lagFrame } from "./evidenceChart";
+import { jointTestName } from "./lagViews";
 import { PALETTE } from "./palette";
 import { element, figure, px, svgRoot, textElement } from "./svg";
 
@@ -20,23 +26,45 @@ export interface JointRibbonOptions {
 /** −log10 p at which a cell reaches full strength: a display choice, not a statistical threshold. */
 const FULL_STRENGTH = 6;
 
-/** Fill opacity of a cell whose p is below alpha: 0.25 at alpha, 1 at full strength. */
+/** How deep a cell whose p is below alpha is shaded: 0.25 at alpha, 1 at full strength. */
 export function ribbonStrength(p: number, alpha: number): number {
   const start = -Math.log10(alpha);
   const end = Math.max(FULL_STRENGTH, 2 * start);
   return scaleLinear().domain([start, end]).range([0.25, 1]).clamp(true)(-Math.log10(p));
 }
 
+/** The fill of a cell below alpha: vermillion at strength 0.25, the deepest shade at 1. */
+export function ribbonFill(p: number, alpha: number): string {
+  return scaleLinear<string>()
+    .domain([0.25, 1])
+    .range([PALETTE.structure, PALETTE.ribbonDeepest])
+    .clamp(true)(ribbonStrength(p, alpha));
+}
+
 export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}): string {
   const width = options.width ?? 320;
   const id = options.idPrefix ?? "echolot-ribbon";
-  const height = 46;
+  const height = 74;
   const frame = lagFrame(width);
   const x = lagColumns(table.maxLag, frame);
-  const cellTop = 16;
+  const cellTop = 20;
   const cellHeight = 14;
-  const testName = TEST_NAMES[table.testKind];
+  const testName = jointTestName(table);
+  const alpha = figure(table.alpha, 3);
   const parts: string[] = [];
+  const text = (className: string, tx: number, ty: number, words: string, anchor?: "end") =>
+    textElement(
+      "text",
+      {
+        class: className,
+        x: px(tx),
+        y: px(ty),
+        "text-anchor": anchor,
+        "font-size": CHART_TEXT_PX,
+        fill: PALETTE.ink,
+      },
+      words,
+    );
   parts.push(
     textElement(
       "title",
@@ -49,22 +77,21 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
     textElement(
       "desc",
       { id: `${id}-desc` },
-      `Joint test ribbon: one cell per k. ${below.length === 0 ? "No k" : `k = ${below.join(", ")}`} ${below.length === 1 ? "has" : "have"} p below alpha ${figure(table.alpha, 3)}. At the chosen K = ${table.maxLag}: p = ${formatP(table.joint.p)}.`,
+      `Joint test ribbon (${testName}): one cell per k. ${below.length === 0 ? "No k" : `k = ${below.join(", ")}`} ${below.length === 1 ? "has" : "have"} p below alpha ${alpha}. At the chosen K = ${table.maxLag}: p = ${formatP(table.joint.p)}.`,
     ),
   );
-  parts.push(
-    textElement(
-      "text",
-      { class: "caption", x: px(frame.left), y: 10, "font-size": 9, fill: PALETTE.muted },
-      `joint test (${testName}) of lags 1…k`,
-    ),
-  );
+  parts.push(text("caption", 4, 12, `Joint test ${testName} of lags 1…k, χ² p by cell`));
 
   for (const row of table.rows) {
     const p = row.jointP;
     const state = Number.isNaN(p) ? "undefined" : p < table.alpha ? "below" : "above";
     const chosen = row.lag === table.maxLag;
-    const fill = state === "below" ? PALETTE.structure : PALETTE.outerCorridor;
+    const fill =
+      state === "below"
+        ? ribbonFill(p, table.alpha)
+        : state === "above"
+          ? PALETTE.ribbonNeutral
+          : PALETTE.page;
     const tip =
       state === "undefined"
         ? `lags 1–${row.lag}: no degrees of freedom left after ${table.fittedParams} fitted parameters`
@@ -79,9 +106,8 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
           width: px(x.bandwidth()),
           height: cellHeight,
           fill,
-          "fill-opacity": state === "below" ? figure(ribbonStrength(p, table.alpha), 3) : undefined,
-          stroke: chosen ? PALETTE.ink : "#FFFFFF",
-          "stroke-width": chosen ? 1.5 : 0.5,
+          stroke: chosen ? PALETTE.ink : state === "below" ? PALETTE.page : PALETTE.outerEdge,
+          "stroke-width": chosen ? 2 : state === "below" ? 0.5 : 1,
           "data-k": row.lag,
           "data-p": figure(p),
         },
@@ -90,18 +116,33 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
     );
   }
   parts.push(
-    textElement(
-      "text",
-      {
-        class: "caption",
-        x: px(frame.right),
-        y: px(cellTop + cellHeight + 12),
-        "text-anchor": "end",
-        "font-size": 9,
-        fill: PALETTE.ink,
-      },
-      `K = ${table.maxLag}: p = ${formatP(table.joint.p)}`,
+    text(
+      "caption chosen-p",
+      frame.right,
+      cellTop + cellHeight + 14,
+      `outlined K = ${table.maxLag}: χ² p = ${formatP(table.joint.p)}`,
+      "end",
     ),
   );
+
+  // The key: an outlined light cell for p at or above alpha, two filled cells for below.
+  const keyY = height - 16;
+  const swatch = (sx: number, fill: string, stroke: string) =>
+    element("rect", {
+      class: "key-swatch",
+      x: px(sx),
+      y: px(keyY),
+      width: 12,
+      height: 12,
+      fill,
+      stroke,
+      "stroke-width": 1,
+    });
+  parts.push(swatch(4, PALETTE.ribbonNeutral, PALETTE.outerEdge));
+  parts.push(text("key", 20, keyY + 10, `p ≥ ${alpha}`));
+  const second = 20 + (`p ≥ ${alpha}`.length + 2) * 6.5;
+  parts.push(swatch(second, PALETTE.structure, PALETTE.page));
+  parts.push(swatch(second + 12, PALETTE.ribbonDeepest, PALETTE.page));
+  parts.push(text("key", second + 29, keyY + 10, `p < ${alpha}, darker as p falls`));
   return svgRoot("joint-ribbon", width, height, id, parts.join(""));
 }

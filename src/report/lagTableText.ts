@@ -1,55 +1,82 @@
 /**
- * The lag table as fixed-width text, for the terminal. Figures are rounded for reading only; the
- * JSON output keeps full precision.
+ * The lag table as fixed-width text, for the terminal, in Echolot's own reading of a lag: its z,
+ * the corridor that holds it, its p alone and for all K lags together; the correlations follow.
+ * The joint test over lags 1..k is not a figure of lag k, so it is a separate view,
+ * `jointSpanText`: one row per span of lags. Figures are rounded for reading only; the JSON output
+ * keeps full precision.
  */
-import { formatP, TEST_NAMES, type LagTable } from "../core";
+import { formatP, referencedPPhrase, type LagTable } from "../core";
+import { jointTestName, rowZone, viewBandWords } from "./lagViews";
+import { ZONE_SHORT } from "./palette";
 import { numberCell, pCell } from "./tableCells";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 
+/** The series' lines, the per-lag rows, the joint test at the chosen K and the verdict. */
 export function lagTableText(table: LagTable): string {
   const badge = BADGES[table.verdict.word];
-  const lines: string[] = [];
+  const K = table.maxLag;
   const name = table.label === "" ? "series" : table.label;
+  const lines: string[] = [];
   lines.push(
     `${name}: n = ${table.n}, gaps ${table.gaps}, mean ${table.mean.toPrecision(6)}, variance ${table.variance.toPrecision(6)}`,
   );
   lines.push(
-    `bands: ${table.bandKind}, alpha ${table.alpha}; joint test: ${TEST_NAMES[table.testKind]}` +
+    `z against ${viewBandWords(table, "correlation")}, alpha ${table.alpha}` +
       `${table.fittedParams > 0 ? `, ${table.fittedParams} fitted parameters` : ""}` +
-      `${table.season === null ? "" : `; season ${table.season}`}`,
+      `${table.season === null ? "" : `, season ${table.season}`}`,
   );
   lines.push(
-    `corridors: one lag ±${table.innerLevel.toFixed(3)}, all ${table.maxLag} lags ±${table.outerLevel.toFixed(3)} (in z units)`,
+    `corridors in z: one lag ±${table.innerLevel.toFixed(3)}, all ${K} lags ±${table.outerLevel.toFixed(3)}`,
   );
   lines.push("");
-  lines.push(
-    "  lag     corr  partial     band       z   p(lag)  p(all K)        Q  df  p(joint)  mark",
-  );
+  lines.push("  lag       z  corridor   p one lag  p all lags   autocorr   partial");
+  lines.push("                                     (Šidák)");
   for (const row of table.rows) {
-    const mark = row.outer ? "beyond all-lags corridor" : row.beyond ? "beyond band" : "";
     lines.push(
       [
         String(row.lag).padStart(5),
-        numberCell(row.correlation, 4, 8),
-        numberCell(row.partial, 4, 8),
-        numberCell(row.band, 4, 8),
         numberCell(row.z, 2, 7),
-        pCell(row.pLag, 8),
-        pCell(row.pSidak, 9),
-        numberCell(row.jointQ, 2, 8),
-        String(row.jointDf).padStart(3),
-        pCell(row.jointP, 9),
-        ` ${mark}`,
+        ` ${ZONE_SHORT[rowZone(row)].padEnd(8)}`,
+        pCell(row.pLag, 11),
+        pCell(row.pSidak, 11),
+        numberCell(row.correlation, 4, 10),
+        numberCell(row.partial, 4, 9),
       ].join(" "),
     );
   }
   lines.push("");
   lines.push(
-    `joint: ${TEST_NAMES[table.joint.test]} Q = ${table.joint.q.toFixed(4)}, df ${table.joint.df}, p = ${formatP(table.joint.p)}`,
+    `joint test ${jointTestName(table)}, lags 1–${K}: Q = ${table.joint.q.toFixed(4)}, df ${table.joint.df}, χ² p = ${formatP(table.joint.p)}`,
   );
+  lines.push(`  as the verdict reads it: ${referencedPPhrase(table.levels.jointP)}`);
   lines.push(`verdict: ${badge.shape} ${badge.word}`);
   lines.push(`  ${table.verdict.reason}`);
   lines.push("");
   lines.push(SCREENING_CAUTION);
+  return lines.join("\n");
+}
+
+/**
+ * The joint test by lag span: one row per k = 1..K with the test over lags 1..k (what the ribbon
+ * draws as cells), the chosen K marked as the verdict's.
+ */
+export function jointSpanText(table: LagTable): string {
+  const lines = [
+    `joint test by lag span: ${jointTestName(table)} over lags 1..k (the verdict reads k = ${table.maxLag})`,
+    "  lags          Q   df       χ² p",
+  ];
+  for (const row of table.rows) {
+    lines.push(
+      [
+        `1–${row.lag}`.padStart(6),
+        numberCell(row.jointQ, 2, 10),
+        (Number.isNaN(row.jointP) ? "—" : String(row.jointDf)).padStart(4),
+        pCell(row.jointP, 10),
+        row.lag === table.maxLag ? " ← verdict" : "",
+      ]
+        .join(" ")
+        .trimEnd(),
+    );
+  }
   return lines.join("\n");
 }

@@ -8,11 +8,11 @@
  * - `squares`: the autocorrelation of the squared deviations, from a lag table computed with
  *   testKind "squares" (the McLeod–Li view of volatility clustering).
  *
- * A point's zone says which corridor holds it: inside ±z_{1−α/2}, between that and the Šidák level
+ * A point's zone says which corridor holds it: inside ±z_{1−α/2}, between that and the outer level
  * for K lags, or beyond. The comparisons are the core's (`beyond`, `outer`) for the correlation
  * views and the same strict inequalities for the partials.
  */
-import type { LagRow, LagTable } from "../core";
+import { TEST_NAMES, type BandKind, type LagRow, type LagTable } from "../core";
 import type { Zone } from "./palette";
 
 export type ChartView = "correlation" | "partial" | "squares";
@@ -29,6 +29,26 @@ export const VIEW_QUANTITIES: Readonly<Record<ChartView, string>> = {
   partial: "partial autocorrelation",
   squares: "autocorrelation of the squared deviations",
 };
+
+/** Each band kind in a few words, for captions and headings. */
+export const BAND_WORDS: Readonly<Record<BandKind, string>> = {
+  noise: "noise bands (se 1/√n)",
+  bartlett: "Bartlett bands",
+  robust: "robust bands (volatility)",
+};
+
+/**
+ * The bands a view's z is measured against: the table's kind, except for the partials, whose
+ * standard error is 1/√n whatever the kind (Quenouille 1949).
+ */
+export function viewBandWords(table: LagTable, view: ChartView): string {
+  return view === "partial" ? "bands (se 1/√n)" : BAND_WORDS[table.bandKind];
+}
+
+/** The joint test that goes with a view: the table's own (McLeod–Li for the squares' table). */
+export function jointTestName(table: LagTable): string {
+  return table.testKind === "squares" ? "McLeod–Li" : TEST_NAMES[table.testKind];
+}
 
 export interface LagPoint {
   readonly lag: number;

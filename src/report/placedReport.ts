@@ -10,7 +10,7 @@
  */
 import { formatP, TEST_NAMES, type LagTable } from "../core";
 import { explainVerdict, type Explanation } from "./explain";
-import { lagTableHeader, lagTableValues } from "./lagTableHeader";
+import { LAG_TABLE_Z_COLUMN, lagTableHeader, lagTableValues } from "./lagTableHeader";
 import { rowZone } from "./lagViews";
 import { PALETTE } from "./palette";
 import { SCREENING_CAUTION } from "./verdictBadge";
@@ -115,7 +115,9 @@ export function uniqueSheetName(label: string, existing: readonly string[]): str
   const taken = new Set(existing.map((name) => name.toLowerCase()));
   for (let i = 1; ; i++) {
     const suffix = i === 1 ? "" : ` (${i})`;
-    const name = `${base.slice(0, SHEET_NAME_LIMIT - suffix.length).trimEnd()}${suffix}`;
+    // Cut to the length limit; a name may not end with an apostrophe either.
+    const cut = base.slice(0, SHEET_NAME_LIMIT - suffix.length).replace(/[\s']+$/, "");
+    const name = `${cut}${suffix}`;
     if (!taken.has(name.toLowerCase())) return name;
   }
 }
@@ -145,7 +147,13 @@ export function liveReportFormulas(table: LagTable, source: ReportSource): LiveF
   const series = source.reference;
   const { maxLag, alpha, season, fittedParams, bandKind, testKind } = table;
   return {
-    noiseCheck: echolotFormula("SERIESNOISECHECK", series, [maxLag, season, fittedParams, alpha]),
+    // Season 0 means none: the formula never relies on an empty argument between commas.
+    noiseCheck: echolotFormula("SERIESNOISECHECK", series, [
+      maxLag,
+      season ?? 0,
+      fittedParams,
+      alpha,
+    ]),
     lagTable: echolotFormula("SERIESLAGTABLE", series, [maxLag, alpha, bandKind, season]),
     portmanteau: echolotFormula("SERIESPORTMANTEAU", series, [maxLag, fittedParams, testKind]),
   };
@@ -220,7 +228,9 @@ function buildPlan(
     text(6, 3, numberOrEmpty(table.joint.p));
     lagTableHeader(table).forEach((h, c) => text(TABLE_ROW, c, h));
     table.rows.forEach((r, i) => {
-      lagTableValues(r).forEach((v, c) => text(TABLE_ROW + 1 + i, c, numberOrEmpty(v)));
+      lagTableValues(r).forEach((v, c) =>
+        text(TABLE_ROW + 1 + i, c, typeof v === "number" ? numberOrEmpty(v) : v),
+      );
     });
   }
 
@@ -241,7 +251,7 @@ function buildPlan(
     text(row, HELPER_COLUMN + 2, 2 * table.innerLevel);
     text(row, HELPER_COLUMN + 3, gap);
     if (kind === "live") {
-      const z = `$D${row + 1}`; // the z column of the spilled lag table
+      const z = `$${columnLetters(LAG_TABLE_Z_COLUMN)}${row + 1}`; // the spilled table's z
       const guard = (test: string) => ({
         formula: `=IF(ISNUMBER(${z}),IF(${test},${z},NA()),NA())`,
       });

@@ -8,7 +8,7 @@ import type { LagTable, Series } from "../core";
 import { absoluteCell, textLiteral } from "./portableFormulas";
 import { portableBlock } from "./portableBlock";
 import {
-  EXACT_REFERENCE_BELOW,
+  addInPermutes,
   PORTABLE_BLOCK_WIDTH,
   PORTABLE_FORMATS,
   portableBlockCells,
@@ -108,7 +108,7 @@ export function portableBatchPlan(
       row,
       column: 6,
       content: {
-        formula: `=IF(${at.n}<${EXACT_REFERENCE_BELOW},${textLiteral("under 1,000 values: the add-in's exact reading may differ")},"")`,
+        formula: `=IF(${addInPermutes(at.n, at.maxLag, at.fittedParams)},${textLiteral("n·K ≤ 250,000: the add-in's permutation reading may differ")},"")`,
       },
       style: "note",
     });

@@ -9,7 +9,8 @@ import { absoluteCell, absoluteColumn, textLiteral } from "./portableFormulas";
 import { reasonFormula, standardErrorFormula, termFormula } from "./portableLagFormulas";
 import {
   COL,
-  EXACT_REFERENCE_BELOW,
+  addInPermutes,
+  PERMUTATION_NOTE,
   FIGURE_LABELS,
   FIGURE_ROWS,
   HELP,
@@ -34,6 +35,21 @@ import { SCREENING_CAUTION } from "./verdictBadge";
 function zoneOf(z: number, beyond: boolean, outer: boolean): string {
   if (!Number.isFinite(z)) return "";
   return outer ? "beyond" : beyond ? "between" : "inside";
+}
+
+/**
+ * The sheet's verdict formula, evaluated on Echolot's figures: short, then structure (the χ² p
+ * below the written joint level, or a lag beyond the all-lags corridor), then watch, else clear.
+ */
+function sheetVerdict(f: (name: FigureRow) => Figure | undefined): string {
+  const num = (name: FigureRow) => f(name) as number;
+  if (num("n") < 20 || num("maxLag") > num("n") / 4) return "short";
+  const p = f("p");
+  if ((typeof p === "number" && p < num("jointLevel")) || num("outerCount") > 0) {
+    return "structure";
+  }
+  const excess = num("beyond") > 0 && num("chance") < num("alpha");
+  return f("lagOne") === "yes" || f("seasonal") === "yes" || excess ? "watch" : "clear";
 }
 
 function finiteOr(x: number): Figure {
@@ -172,7 +188,7 @@ export function portableBlock(
   figure(
     "outerCount",
     { formula: `=COUNTIF(${zones},"beyond")` },
-    table.verdict.triggers.outerLags.length,
+    table.rows.filter((row) => row.outer).length,
     PORTABLE_FORMATS.count,
   );
   figure(
@@ -185,11 +201,9 @@ export function portableBlock(
   );
   const crosses = (k: number) =>
     `OR(${lagCell(k, COL.zone)}="between",${lagCell(k, COL.zone)}="beyond")`;
-  figure(
-    "lagOne",
-    { formula: `=IF(${crosses(1)},"yes","no")` },
-    table.verdict.triggers.lagOne ? "yes" : "no",
-  );
+  // Lag 1 and the seasonal lags as the sheet judges them: beyond the one-lag corridor.
+  const crossesInner = (k: number) => table.rows[k - 1]?.beyond === true;
+  figure("lagOne", { formula: `=IF(${crosses(1)},"yes","no")` }, crossesInner(1) ? "yes" : "no");
   const seasonal =
     table.season === null ? [] : [table.season, 2 * table.season].filter((m) => m <= K);
   figure(
@@ -197,14 +211,10 @@ export function portableBlock(
     seasonal.length === 0
       ? { value: "not tested" }
       : { formula: `=IF(OR(${seasonal.map(crosses).join(",")}),"yes","no")` },
-    seasonal.length === 0
-      ? "not tested"
-      : table.verdict.triggers.seasonalLags.length > 0
-        ? "yes"
-        : "no",
+    seasonal.length === 0 ? "not tested" : seasonal.some(crossesInner) ? "yes" : "no",
   );
 
-  // The verdict, by the add-in's rules (verdict.ts) at its levels.
+  // The verdict: the add-in's rules (verdict.ts) at the levels written above, on the χ² p.
   const p = fig("p");
   const verdictCell = cell(ROW.verdict, 1);
   text(ROW.verdict, 0, "Verdict", "heading");
@@ -216,13 +226,17 @@ export function portableBlock(
     },
     { style: "verdict", figure: key("verdict") },
   );
-  figures.set(key("verdict"), table.verdict.word);
+  figures.set(
+    key("verdict"),
+    sheetVerdict((name) => figures.get(key(name))),
+  );
+  figures.set(key("addInVerdict"), table.verdict.word);
   put(ROW.verdict, 2, { formula: reasonFormula(table, verdictCell, fig) });
   put(
     ROW.exact,
     1,
     {
-      formula: `=IF(${n}<${EXACT_REFERENCE_BELOW},${textLiteral(`Fewer than ${EXACT_REFERENCE_BELOW.toLocaleString("en")} values: the add-in may read the joint test from an exact small-sample reference that spreadsheet functions cannot compute, so its verdict may differ from this χ² reading.`)},${textLiteral("The joint test is read from χ², as the add-in reads it for series this long.")})`,
+      formula: `=IF(${addInPermutes(n, fig("maxLag"), fig("fittedParams"))},${textLiteral(PERMUTATION_NOTE)},${textLiteral("For a series this long (n·K > 250,000) or with fitted parameters the add-in too reads the joint p from χ².")})`,
     },
     { style: "note" },
   );

@@ -37,7 +37,8 @@ import type {
 
 export { portableBlock } from "./portableBlock";
 export {
-  EXACT_REFERENCE_BELOW,
+  addInPermutes,
+  PERMUTATION_NOTE,
   PORTABLE_BLOCK_WIDTH,
   PORTABLE_FORMATS,
   PORTABLE_TEST_KINDS,

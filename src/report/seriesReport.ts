@@ -1,13 +1,12 @@
 /**
  * Everything the pane and the HTML report show about one series, computed by the core and worded
- * here: the lag table, the squared-deviations table (the third chart view), the volatility and
- * bias checks, and the explanation that draws on all of them. No arithmetic of its own.
+ * here: the lag table, the squared-deviations table (the third chart view), the side checks
+ * (volatility, bias, runs, normality), and the explanation that draws on them. No arithmetic of
+ * its own.
  */
 import {
-  biasCheck,
   resultOrReason,
   lagTable,
-  volatilityCheck,
   type BiasCheck,
   type LagOptions,
   type LagTable,
@@ -16,6 +15,7 @@ import {
 } from "../core";
 import { biasFinding, volatilityFinding } from "./checkLines";
 import { explainVerdict, type Explanation } from "./explain";
+import { sideChecks, type SideChecks } from "./sideChecksText";
 
 export interface SeriesReport {
   readonly series: Series;
@@ -24,6 +24,8 @@ export interface SeriesReport {
   readonly squares: LagTable | string;
   readonly volatility: VolatilityCheck | undefined;
   readonly bias: BiasCheck | undefined;
+  /** All four side checks, each a result or the reason it could not be made. */
+  readonly side: SideChecks;
   readonly explanation: Explanation;
 }
 
@@ -34,16 +36,21 @@ export function seriesReport(series: Series, options: LagOptions): SeriesReport 
   const squares = resultOrReason(() =>
     lagTable(series, { ...options, testKind: "squares", bandKind: "noise", fittedParams: 0 }),
   );
-  const volatility = resultOrReason(() =>
-    volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
-  );
-  const bias = resultOrReason(() => biasCheck(series, { alpha: table.alpha }));
-  const volatilityResult = typeof volatility === "string" ? undefined : volatility;
-  const biasResult = typeof bias === "string" ? undefined : bias;
+  const side = sideChecks(series, table);
+  const volatilityResult = typeof side.volatility === "string" ? undefined : side.volatility;
+  const biasResult = typeof side.bias === "string" ? undefined : side.bias;
   const explanation = explainVerdict(table, {
     ...(typeof squares === "string" ? {} : { squares }),
     ...(volatilityResult === undefined ? {} : { volatility: volatilityFinding(volatilityResult) }),
     ...(biasResult === undefined ? {} : { bias: biasFinding(biasResult) }),
   });
-  return { series, table, squares, volatility: volatilityResult, bias: biasResult, explanation };
+  return {
+    series,
+    table,
+    squares,
+    volatility: volatilityResult,
+    bias: biasResult,
+    side,
+    explanation,
+  };
 }

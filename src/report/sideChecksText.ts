@@ -2,7 +2,19 @@
  * The side checks of one series as text lines for the terminal (`echolot check`): volatility,
  * bias, runs and normality, one finding each, or the reason a check could not be made.
  */
-import type { BiasCheck, NormalityCheck, RunsCheck, VolatilityCheck } from "../core";
+import {
+  biasCheck,
+  normalityCheck,
+  resultOrReason,
+  runsCheck,
+  volatilityCheck,
+  type BiasCheck,
+  type LagTable,
+  type NormalityCheck,
+  type RunsCheck,
+  type Series,
+  type VolatilityCheck,
+} from "../core";
 import { biasFinding, normalityFinding, runsFinding, volatilityFinding } from "./checkLines";
 
 /** Each check's result, or the message saying why the data cannot support it. */
@@ -14,26 +26,42 @@ export interface SideChecks {
   readonly normality: NormalityCheck | string;
 }
 
+/** The four side checks of a series, at the lag table's alpha and (for volatility) its K. */
+export function sideChecks(series: Series, table: LagTable): SideChecks {
+  return {
+    alpha: table.alpha,
+    volatility: resultOrReason(() =>
+      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
+    ),
+    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
+    runs: resultOrReason(() => runsCheck(series)),
+    normality: resultOrReason(() => normalityCheck(series)),
+  };
+}
+
+/** Each side check's name and its finding (or why it was not computed), in reading order. */
+export function sideFindings(
+  checks: SideChecks,
+): { name: string; finding: { flagged: boolean; text: string } | string }[] {
+  const { alpha } = checks;
+  const found = <T>(value: T | string, word: (v: T) => { flagged: boolean; text: string }) =>
+    typeof value === "string" ? value : word(value);
+  return [
+    { name: "volatility", finding: found(checks.volatility, volatilityFinding) },
+    { name: "bias", finding: found(checks.bias, biasFinding) },
+    { name: "runs", finding: found(checks.runs, (r) => runsFinding(r, alpha)) },
+    { name: "normality", finding: found(checks.normality, (r) => normalityFinding(r, alpha)) },
+  ];
+}
+
 function line(name: string, finding: { flagged: boolean; text: string } | string): string {
   if (typeof finding === "string") return `  ${name.padEnd(11)} not computed: ${finding}`;
   return `  ${name.padEnd(11)} ${finding.flagged ? "flag" : "ok  "}  ${finding.text}`;
 }
 
 export function sideChecksText(checks: SideChecks): string {
-  const { alpha } = checks;
-  const found = <T>(value: T | string, word: (v: T) => { flagged: boolean; text: string }) =>
-    typeof value === "string" ? value : word(value);
   return [
-    `side checks (alpha ${alpha}):`,
-    line("volatility", found(checks.volatility, volatilityFinding)),
-    line("bias", found(checks.bias, biasFinding)),
-    line(
-      "runs",
-      found(checks.runs, (r) => runsFinding(r, alpha)),
-    ),
-    line(
-      "normality",
-      found(checks.normality, (r) => normalityFinding(r, alpha)),
-    ),
+    `side checks (alpha ${checks.alpha}):`,
+    ...sideFindings(checks).map(({ name, finding }) => line(name, finding)),
   ].join("\n");
 }

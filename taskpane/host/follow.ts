@@ -8,6 +8,7 @@
  */
 import { splitAddress, touches } from "./address";
 import type { ExcelRun } from "./excel";
+import { removeHandlers } from "./selection";
 
 export interface Following {
   readonly address: string;
@@ -26,19 +27,15 @@ export async function followRange(
         ? context.workbook.worksheets.getActiveWorksheet()
         : context.workbook.worksheets.getItem(sheet);
     const edited = worksheet.onChanged.add(async (event) => {
+      // The pane's own writes (reports on new sheets) never change the data it follows.
+      if (event.triggerSource === "ThisLocalAddin") return;
       if (touches(event.address, range)) await onChange(event.address);
     });
     const recalculated = worksheet.onCalculated.add(async () => {
       await onChange(null);
     });
     await context.sync();
-    return [edited, recalculated];
+    return [edited, recalculated] as OfficeExtension.EventHandlerResult<unknown>[];
   });
-  return {
-    address,
-    async stop() {
-      for (const handler of handlers) handler.remove();
-      await handlers[0]?.context.sync();
-    },
-  };
+  return { address, stop: () => removeHandlers(run, handlers) };
 }

@@ -3,16 +3,25 @@
  * each reading to the pane; the actions place reports on a new sheet. The readings become series
  * through the core's intake: one column or row is one series, a block is one series per column.
  */
-import { isEcholotError, seriesFromCells, type Series } from "../../src/core";
-import { liveReportPlan, snapshotReportPlan } from "../../src/report";
+import { isEcholotError, seriesFromValues, type Series } from "../../src/core";
+import { cellAddress, liveReportPlan, snapshotReportPlan } from "../../src/report";
 import type { PaneController } from "../pane/controller";
 import { showMessage, type PaneElements } from "../pane/view";
-import { absoluteReference, columnReferences } from "./address";
-import { HostError, hostRun, type ExcelRun } from "./excel";
+import { absoluteReference, columnReferences, parseAreas, splitAddress } from "./address";
+import {
+  HostError,
+  hostRun,
+  hostSupport,
+  requestErrorCode,
+  type ApiSupport,
+  type ExcelRun,
+} from "./excel";
 import { installPortableAction } from "./placePortable";
 import { placeReport } from "./placeReport";
-import type { RangeRead } from "./readRange";
+import type { ErrorCell, RangeRead } from "./readRange";
 import { HostSession } from "./session";
+import { isEcholotFormula } from "./cellFormula";
+import { explainFailedCell } from "./whyFailed";
 
 function byId<T extends HTMLElement>(id: string): T {
   const found = document.getElementById(id);
@@ -30,38 +39,91 @@ function isBlank(cell: unknown): boolean {
   return cell === "" || cell === null || cell === undefined;
 }
 
+/** Names the sheet cell of position i of a column (or row) that starts at (row, column). */
+function cellNamer(row: number, column: number, alongRow: boolean): (i: number) => string {
+  return (i) => `cell ${alongRow ? cellAddress(row, column + i) : cellAddress(row + i, column)}`;
+}
+
 /**
  * One series per column of a block (a column with no value at all is left out); a single row or
- * column is one series.
+ * column is one series. A refused cell is named by its address on the sheet ("cell B13").
  */
 export function seriesOfReading(read: RangeRead): ReadingSeries {
+  const [area] = parseAreas(splitAddress(read.address).range);
+  const top = area?.firstRow ?? 0;
+  const left = area?.firstColumn ?? 0;
   if (read.rows <= 1 || read.columns <= 1) {
-    return { series: [seriesFromCells(read.cells)], references: [absoluteReference(read.address)] };
+    const alongRow = read.rows === 1 && read.columns > 1;
+    const list = alongRow ? (read.cells[0] ?? []) : read.cells.map((row) => row[0]);
+    const series = seriesFromValues(list, { describePosition: cellNamer(top, left, alongRow) });
+    return { series: [series], references: [absoluteReference(read.address)] };
   }
   const columnRefs = columnReferences(read.address);
   const series: Series[] = [];
   const references: string[] = [];
   for (let c = 0; c < read.columns; c++) {
-    const cells = read.cells.map((row) => [row[c]]);
-    if (cells.every(([cell]) => isBlank(cell))) continue;
-    series.push(seriesFromCells(cells));
+    const list = read.cells.map((row) => row[c]);
+    if (list.every((cell) => isBlank(cell))) continue;
+    series.push(seriesFromValues(list, { describePosition: cellNamer(top, left + c, false) }));
     references.push(columnRefs[c] as string);
   }
   return { series, references };
 }
 
-function messageOf(error: unknown): string {
+/** What to do about a request the host refused, by its code (Excel.ErrorCodes). */
+const REQUEST_ADVICE: Readonly<Record<string, string>> = {
+  RangeExceedsLimit:
+    "the range is too large for one request; select fewer cells, or use the command-line tool on a CSV export",
+  ResponsePayloadSizeLimitExceeded:
+    "the answer would pass the host's 5 MB limit; select fewer cells, or use the command-line tool on a CSV export",
+  RequestPayloadSizeLimitExceeded:
+    "the request would pass the host's 5 MB limit; place a smaller report",
+  ItemNotFound: "the sheet or range is no longer there; select the data again",
+  InvalidSelection: "select one column, row or block",
+};
+
+export function messageOf(error: unknown): string {
   if (error instanceof HostError || isEcholotError(error)) {
     return error.message.charAt(0).toUpperCase() + error.message.slice(1);
   }
-  return `The workbook refused the request: ${error instanceof Error ? error.message : String(error)}`;
+  const code = requestErrorCode(error);
+  const said = (error instanceof Error ? error.message : String(error)).replace(/\.$/, "");
+  const advice = code === undefined ? undefined : REQUEST_ADVICE[code];
+  if (advice !== undefined) return `The workbook refused the request (${code}): ${advice}.`;
+  return `The workbook refused the request${code === undefined ? "" : ` (${code})`}: ${said}. Nothing was changed; try again, and reopen the pane if it keeps failing.`;
+}
+
+/** `Office.addin.onVisibilityModeChanged`: "Taskpane" or "Hidden" (Office.VisibilityMode). */
+export interface VisibilityEvents {
+  onVisibilityModeChanged(
+    handler: (message: { readonly visibilityMode: string }) => void,
+  ): Promise<() => Promise<void>>;
+}
+
+/** What the pane needs from office.js: `Excel.run`, requirement-set checks, `Office.addin`. */
+export interface HostEnvironment {
+  readonly run: ExcelRun;
+  readonly support: ApiSupport;
+  /** `Office.addin` (shared runtime), or undefined where the host has none. */
+  readonly addin: VisibilityEvents | undefined;
+}
+
+export function officeEnvironment(): HostEnvironment {
+  const addin =
+    typeof Office !== "undefined" && hostSupportsSharedRuntime() ? Office.addin : undefined;
+  return { run: hostRun, support: hostSupport, addin };
+}
+
+function hostSupportsSharedRuntime(): boolean {
+  return Office.context?.requirements?.isSetSupported("SharedRuntime", "1.1") === true;
 }
 
 export async function startHost(
   el: PaneElements,
   pane: PaneController,
-  run: ExcelRun = hostRun,
+  env: HostEnvironment = officeEnvironment(),
 ): Promise<void> {
+  const { run } = env;
   const sourcePanel = byId<HTMLElement>("source-panel");
   const sourceLine = byId<HTMLElement>("source-line");
   const pinToggle = byId<HTMLButtonElement>("pin-toggle");
@@ -78,6 +140,11 @@ export async function startHost(
         pane.showDataProblem(
           "Select a column of numbers (a text first cell is taken as its label), or a block with one series per column.",
         );
+        return;
+      }
+      explaining++;
+      if (isEcholotFormula(read.formula)) {
+        explainCell(read, read.formula);
         return;
       }
       const pinned = session.pinnedAddress;
@@ -120,6 +187,35 @@ export async function startHost(
     },
   });
 
+  // The latest cell being explained: an older explanation never replaces a newer reading.
+  let explaining = 0;
+  const explainCell = (read: RangeRead, formula: string) => {
+    const ticket = ++explaining;
+    sourceLine.textContent = `Selected: ${read.address}`;
+    const shown = read.cells[0]?.[0];
+    const isError = typeof shown === "object" && shown !== null && "code" in shown;
+    if (!isError) {
+      pane.showDataProblem(
+        `Cell ${read.address} holds an ECHOLOT formula (${formula}); select the data it reads to see its analysis here.`,
+      );
+      return;
+    }
+    pane.showDataProblem(
+      `Cell ${read.address} shows ${(shown as ErrorCell).code}; finding out why…`,
+    );
+    explainFailedCell(run, read.address, formula, shown as ErrorCell)
+      .then((why) => {
+        if (ticket !== explaining) return;
+        pane.showDataProblem(
+          why ??
+            `Cell ${read.address} shows ${(shown as ErrorCell).code}; its formula is more than one ECHOLOT call with plain arguments, so the pane cannot recompute it.`,
+        );
+      })
+      .catch((error: unknown) => {
+        if (ticket === explaining) pane.showDataProblem(messageOf(error));
+      });
+  };
+
   pinToggle.addEventListener("click", () => {
     const action = session.pinnedAddress === null ? session.pin() : session.unpin();
     action.catch((error: unknown) => showMessage(el.actionStatus, messageOf(error)));
@@ -155,7 +251,7 @@ export async function startHost(
       const placed = await placeReport(run, plan);
       showMessage(
         el.actionStatus,
-        `${kind === "live" ? "Live report" : "Snapshot"} placed on the new sheet “${placed.sheetName}”.`,
+        `${kind === "live" ? "Live report" : "Snapshot"} placed on the new sheet “${placed.sheetName}” (open its tab to see it); the pane stays on this series.`,
       );
     } catch (error) {
       showMessage(el.actionStatus, messageOf(error));
@@ -165,5 +261,28 @@ export async function startHost(
   el.placeSnapshot.addEventListener("click", () => void place("snapshot"));
   installPortableAction(el, pane, run);
 
-  await session.start();
+  await listenWhileVisible(session, env.addin, (error) => pane.showDataProblem(messageOf(error)));
+}
+
+/**
+ * Listens to the workbook only while the pane is shown: `Office.addin.onVisibilityModeChanged`
+ * reports "Taskpane" or "Hidden" (Office.VisibilityMode; learn.microsoft.com, "Show or hide the
+ * task pane of your Office Add-in"). A shared runtime can start hidden, when a workbook with
+ * ECHOLOT formulas opens: the page is then not visible, and the session waits for the pane to be
+ * shown. Cell functions never wait on any of this: they run in their own calls.
+ */
+export async function listenWhileVisible(
+  session: HostSession,
+  addin: HostEnvironment["addin"],
+  onError: (error: unknown) => void,
+): Promise<void> {
+  if (addin !== undefined) {
+    await addin.onVisibilityModeChanged((message) => {
+      const change = message.visibilityMode === "Hidden" ? session.stop() : session.start();
+      change.catch(onError);
+    });
+  }
+  if (typeof document === "undefined" || document.visibilityState !== "hidden") {
+    await session.start();
+  }
 }

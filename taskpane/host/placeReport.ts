@@ -3,6 +3,11 @@
  * unique name, a check that every cell the report will use is empty (nothing is ever written over
  * a value or a formula), the cells, and a native chart in our palette — the corridors as stacked
  * areas, the standardised values as diamonds.
+ *
+ * The new sheet is not activated: activating it would move the workbook's selection there and
+ * fire the selection event (Excel.Worksheet.activate, Excel.Workbook.onSelectionChanged), and the
+ * pane, following the selection, would leave the series it was showing for the report sheet.
+ * The pane names the new sheet instead.
  */
 import { cellAddress, uniqueSheetName, type PlanChart, type ReportPlan } from "../../src/report";
 import { HostError, type ExcelRun } from "./excel";
@@ -51,7 +56,6 @@ export async function placeReport(run: ExcelRun, plan: ReportPlan): Promise<Plac
     }
     sheet.getRangeByIndexes(0, 0, 1, 1).format.font.bold = true;
     addChart(sheet, plan.chart);
-    sheet.activate();
     await context.sync();
     return { sheetName: name, cellsWritten: plan.cells.length };
   });

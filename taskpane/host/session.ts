@@ -3,6 +3,11 @@
  * once a range is pinned — re-reads that range whenever a change touches it, and hands each
  * reading to its listener. Readings can overlap (a fast series of selection events); only the
  * latest one is delivered.
+ *
+ * It listens only between `start` and `stop`: the pane stops it while hidden (in a shared runtime
+ * the page, and any handler it registered, keeps running when the pane is closed: learn.microsoft
+ * .com, "Show or hide the task pane of your Office Add-in"), and a pinned range stays pinned
+ * across the pause.
  */
 import { splitAddress } from "./address";
 import { HostError, type ExcelRun } from "./excel";
@@ -23,6 +28,8 @@ export interface SessionListener {
 export class HostSession {
   private following: Following | null = null;
   private watching: Watching | null = null;
+  private pinned: string | null = null;
+  private running = false;
   private current: RangeRead | null = null;
   private generation = 0;
 
@@ -38,19 +45,34 @@ export class HostSession {
   }
 
   get pinnedAddress(): string | null {
-    return this.following?.address ?? null;
+    return this.pinned;
   }
 
+  /** Whether the session listens to the workbook (between `start` and `stop`). */
+  get listening(): boolean {
+    return this.running;
+  }
+
+  /** Registers the handlers (the selection's, and the pinned range's) and reads afresh. */
   async start(): Promise<void> {
+    if (this.running) return;
+    this.running = true;
     this.watching = await watchSelection(this.run, () => this.onSelection());
+    if (this.pinned !== null) this.following = await this.follow(this.pinned);
     await this.refresh();
   }
 
+  /** Removes every handler; nothing is read until `start` again. */
   async stop(): Promise<void> {
-    await this.watching?.stop();
-    await this.following?.stop();
+    if (!this.running) return;
+    this.running = false;
+    this.generation++;
+    const watching = this.watching;
+    const following = this.following;
     this.watching = null;
     this.following = null;
+    await watching?.stop();
+    await following?.stop();
   }
 
   /** Pins the range last read (as selected, so a pinned whole column keeps its new rows). */
@@ -60,18 +82,25 @@ export class HostSession {
       throw new HostError("select a range with values first, then pin it");
     }
     await this.following?.stop();
-    // An edit inside the range always recomputes; a recalculation only if the values moved.
-    this.following = await followRange(this.run, reading.selected, (edited) =>
-      this.refresh({ onlyIfChanged: edited === null }),
-    );
+    this.following = null;
+    this.pinned = reading.selected;
+    if (this.running) this.following = await this.follow(reading.selected);
     this.listener.onPinChange(reading.selected);
   }
 
   async unpin(): Promise<void> {
     await this.following?.stop();
     this.following = null;
+    this.pinned = null;
     this.listener.onPinChange(null);
-    await this.refresh();
+    if (this.running) await this.refresh();
+  }
+
+  /** An edit inside the range always recomputes; a recalculation only if the values moved. */
+  private follow(address: string): Promise<Following> {
+    return followRange(this.run, address, (edited) =>
+      this.refresh({ onlyIfChanged: edited === null }),
+    );
   }
 
   /**
@@ -109,7 +138,7 @@ export class HostSession {
   }
 
   private async onSelection(): Promise<void> {
-    if (this.following !== null) return;
+    if (this.pinned !== null || !this.running) return;
     await this.refresh();
   }
 }

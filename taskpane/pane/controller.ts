@@ -194,7 +194,8 @@ export class PaneController {
     const shown = this.shown;
     if (shown === null) return;
     const { table } = shown.analysis;
-    const html = seriesReportHtml(shown.analysis, this.sourceText(shown.input));
+    const source = this.sourceText(shown.input);
+    const html = seriesReportHtml(shown.analysis, { source, made: new Date() });
     const link = document.createElement("a");
     link.href = URL.createObjectURL(new Blob([html], { type: "text/html" }));
     link.download = `echolot-${(table.label || "series").replace(/[^A-Za-z0-9_-]+/g, "-")}.html`;

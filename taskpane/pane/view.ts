@@ -113,7 +113,6 @@ export function renderAnalysis(
   el.label.textContent = table.label === "" ? "Series" : table.label;
   el.meta.textContent = `${gapsText(analysis)} · ${source}`;
   el.badge.innerHTML = badgeHtml(table.verdict.word);
-  el.ribbon.innerHTML = jointRibbonSvg(table, { width: chartWidth(el), idPrefix: "pane-ribbon" });
   el.explanation.innerHTML = explanationHtml(analysis.explanation);
   renderView(el, analysis, view);
 }
@@ -132,9 +131,12 @@ export function renderView(el: PaneElements, analysis: SeriesReport, view: Chart
     el.chartDescription.textContent = el.chart.textContent;
     el.legend.innerHTML = "";
     el.figures.innerHTML = "";
+    el.ribbon.innerHTML = "";
     return;
   }
   const width = chartWidth(el);
+  // The ribbon follows the tab: the squared deviations' tab shows their own joint test.
+  el.ribbon.innerHTML = jointRibbonSvg(table, { width, idPrefix: "pane-ribbon" });
   el.chart.innerHTML = evidenceChartSvg(table, { view, width, idPrefix: `pane-${view}` });
   el.chartDescription.textContent = chartDescription(table, view);
   el.legend.innerHTML = zoneLegendHtml(table);

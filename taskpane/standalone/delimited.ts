@@ -1,104 +1,102 @@
 /**
- * Pasted cells and CSV text as series, for the standalone pane: tab-, semicolon- or
- * comma-separated (or one value per line, or values separated by spaces on one line). A first
- * row with text in it holds the column names. A column whose first value is a number is read as a
- * series; any other column (dates, names) is left aside. Empty cells and NA, N/A or #N/A are gaps;
- * any other text inside a series column is refused by the core's intake, naming its row and
- * column.
+ * Pasted cells and CSV text as series, for the standalone pane, by the same table reader as the
+ * command line (src/core/table.ts): the delimiter (tab, semicolon or comma) and decimal mark are
+ * found from the first lines, an empty line is a row of gaps, messages name the text's own line
+ * numbers. A first row with text in it holds the column names. Columns that are not series (names,
+ * dates, ids) are left aside and named; a column of numbers with a bad cell is refused at that
+ * cell, never passed over. One line of values separated by spaces, or a single row of numbers, is
+ * one series laid out as a row.
  */
 import { parse } from "csv-parse/browser/esm/sync";
 import {
+  cellReader,
+  columnPlace,
+  columnSeries,
+  csvParseOptions,
+  delimiterName,
+  detectDialect,
+  extraLines,
   invalid,
-  isGapText as isGap,
-  isNumberColumn,
-  isNumberText as isNumber,
-  readTextCell,
+  seriesColumnsOf,
   seriesFromValues,
+  TableBuilder,
+  type OptionWords,
   type Series,
 } from "../../src/core";
 
-function delimiterOf(text: string): string | undefined {
-  const firstLine = text.split(/\r?\n/, 1)[0] ?? "";
-  if (text.includes("\t")) return "\t";
-  if (firstLine.includes(";") && !firstLine.includes(",")) return ";";
-  if (text.includes(",")) return ",";
-  return undefined;
-}
+/** How the reader's hints are worded in the pane, which has no reading options to point to. */
+const PANE_WORDS: OptionWords = {
+  percent: "convert the cells to plain numbers",
+  gapWord: (word) => `replace "${word}" with an empty cell`,
+  decimalComma: "use one decimal mark throughout",
+  noHeader: "remove that row",
+};
 
-function records(text: string): string[][] {
-  const delimiter = delimiterOf(text);
-  if (delimiter === undefined) {
-    const lines = text.split(/\r?\n/).filter((line) => line.trim() !== "");
-    // One line of values separated by spaces is a row; otherwise one value per line.
-    if (lines.length === 1) return [(lines[0] ?? "").trim().split(/\s+/)];
-    return lines.map((line) => [line.trim()]);
-  }
+function records(text: string, origin: string): { rows: string[][]; decimal: "." | "," } {
+  const dialect = detectDialect(text, true);
   try {
-    return parse(text, {
-      delimiter,
-      trim: true,
-      skip_empty_lines: true,
-      relax_column_count: true,
-      bom: true,
-    }) as string[][];
+    return { rows: parse(text, csvParseOptions(dialect)) as string[][], decimal: dialect.decimal };
   } catch (error) {
     invalid(
-      `the text is not well-formed ${delimiter === "\t" ? "tab-separated" : "CSV"} data: ${(error as Error).message}`,
+      `${origin} is not well-formed ${delimiterName(dialect.delimiter)}-separated text: ${(error as Error).message}`,
     );
   }
 }
 
 export interface TextSeries {
   readonly series: Series[];
-  /** Columns left aside because they do not hold numbers (dates, names). */
+  /** Columns left aside because they are not series, each with why. */
   readonly skipped: string[];
 }
 
-/** Reads every numeric column of the text as a series; `origin` names the text in messages. */
+/** One line of several values separated by spaces or a delimiter: one series as a row. */
+function rowSeries(
+  cells: readonly string[],
+  decimal: "." | ",",
+  origin: string,
+): TextSeries | undefined {
+  const reader = cellReader({ decimal });
+  if (cells.length < 2 || !cells.every((c) => reader.read(c) !== undefined)) return undefined;
+  const values = cells.map((c) => {
+    const value = reader.read(c) as number;
+    return Number.isNaN(value) ? null : value;
+  });
+  return {
+    series: [seriesFromValues(values, { describePosition: (i) => `value ${i + 1} of ${origin}` })],
+    skipped: [],
+  };
+}
+
+/** Reads every series column of the text; `origin` names the text in messages. */
 export function seriesFromText(text: string, origin: string): TextSeries {
-  const rows = records(text);
-  if (rows.length === 0) invalid(`${origin} is empty: paste or open some numbers`);
-
-  // A single data row of several numbers is one series laid out as a row.
-  const first = rows[0] ?? [];
-  if (rows.length === 1 && first.length > 1 && first.every((c) => isNumber(c) || isGap(c))) {
-    const values = first.map((c) => (isGap(c) ? null : Number(c)));
-    return {
-      series: [
-        seriesFromValues(values, { describePosition: (i) => `value ${i + 1} of ${origin}` }),
-      ],
-      skipped: [],
-    };
+  if (text.trim() === "") invalid(`${origin} is empty: paste or open some numbers`);
+  const { rows, decimal } = records(text, origin);
+  const nonEmpty = rows.filter((r) => r.some((c) => c.trim() !== ""));
+  if (nonEmpty.length === 1) {
+    const only = nonEmpty[0] as string[];
+    const cells = only.length === 1 ? (only[0] as string).trim().split(/\s+/) : only;
+    const row = rowSeries(cells, decimal, origin);
+    if (row !== undefined) return row;
   }
 
-  const hasHeader = first.some((c) => !isNumber(c) && !isGap(c));
-  const headers = hasHeader ? first : first.map((_, i) => `column ${i + 1}`);
-  const body = hasHeader ? rows.slice(1) : rows;
-  const width = Math.max(headers.length, ...body.map((r) => r.length));
-  const series: Series[] = [];
-  const skipped: string[] = [];
-  for (let c = 0; c < width; c++) {
-    const name = headers[c] ?? `column ${c + 1}`;
-    const cells = body.map((r) => r[c] ?? "");
-    if (!isNumberColumn(cells)) {
-      skipped.push(name);
-      continue;
-    }
-    const values = cells.map(readTextCell);
-    const rowOffset = hasHeader ? 2 : 1;
-    series.push(
-      seriesFromValues(values, {
-        label: hasHeader ? name : "",
-        labelFromFirstCell: false,
-        describePosition: (i) =>
-          `row ${i + rowOffset}, column ${c + 1}${hasHeader ? ` ("${name}")` : ""} of ${origin}`,
-      }),
-    );
+  const builder = new TableBuilder({
+    origin,
+    header: "auto",
+    cells: { decimal },
+    words: PANE_WORDS,
+  });
+  let line = 1;
+  for (const record of rows) {
+    builder.push(record, line);
+    line += 1 + extraLines(record);
   }
-  if (series.length === 0) {
+  const table = builder.finish();
+  const { series: columns, leftOut } = seriesColumnsOf(table);
+  const skipped = leftOut.map((l) => `${columnPlace(table, l.column)} ${l.reason}`);
+  if (columns.length === 0) {
     invalid(
-      `${origin} has no column of numbers${skipped.length > 0 ? ` (columns seen: ${skipped.join(", ")})` : ""}`,
+      `${origin} has no column of numbers${skipped.length > 0 ? `: ${skipped.join("; ")}` : ""}`,
     );
   }
-  return { series, skipped };
+  return { series: columns.map((column) => columnSeries(table, column)), skipped };
 }

@@ -30,7 +30,7 @@ export function startStandalone(el: PaneElements, pane: PaneController): void {
   const load = (text: string, origin: string, suggested?: LagOptions) => {
     try {
       const { series, skipped } = seriesFromText(text, origin);
-      const aside = skipped.length > 0 ? ` (left aside: ${skipped.join(", ")})` : "";
+      const aside = skipped.length > 0 ? ` (left aside: ${skipped.join("; ")})` : "";
       pane.show({ series, source: `${origin}${aside}` }, suggested);
     } catch (error) {
       if (!isEcholotError(error)) throw error;

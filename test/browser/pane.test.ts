@@ -14,6 +14,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   builtPane,
   launchChromium,
+  recordViolations,
+  violations,
   ROOT,
   servePane,
   type Browser,
@@ -56,17 +58,7 @@ describe("the built pane in a browser, standalone", () => {
         problems.push(`console ${message.type()}: ${message.text()}`);
       }
     });
-    await page.addInitScript(() => {
-      const seen: { directive: string; blocked: string; source: string }[] = [];
-      Object.assign(window, { echolotViolations: seen });
-      document.addEventListener("securitypolicyviolation", (event) => {
-        seen.push({
-          directive: event.violatedDirective,
-          blocked: event.blockedURI,
-          source: event.sourceFile,
-        });
-      });
-    });
+    await recordViolations(page);
     await page.goto(`${server.origin}/taskpane.html`);
     await page.locator("#data-panel").waitFor({ state: "visible" });
   }, 180_000);
@@ -190,19 +182,12 @@ describe("the built pane in a browser, standalone", () => {
     expect(requests.length).toBeGreaterThan(0);
     const outside = requests.filter((url) => new URL(url).hostname !== "127.0.0.1");
     expect(outside, `requests: ${requests.join(", ")}`).toEqual([]);
-    const violations = await page.evaluate(
-      () =>
-        (
-          window as unknown as {
-            echolotViolations: { directive: string; blocked: string; source: string }[];
-          }
-        ).echolotViolations,
-    );
+    const seen = await violations(page);
     // What the policy blocked, attempt by attempt: office.js's telemetry frame (and that frame's
     // inline style attribute), and eval in a feature probe of a bundled library (stdlib checks
     // generator support with eval inside try/catch and falls back). Nothing else, and nothing
     // loaded: the request log above is all 127.0.0.1.
-    for (const v of violations) {
+    for (const v of seen) {
       const where = new URL(v.source).pathname;
       const officeFrame =
         where.startsWith("/office-js/") &&
@@ -214,8 +199,8 @@ describe("the built pane in a browser, standalone", () => {
       expect(officeFrame || evalProbe, JSON.stringify(v)).toBe(true);
     }
     expect(
-      violations.some((v) => v.directive === "frame-src"),
-      JSON.stringify(violations),
+      seen.some((v) => v.directive === "frame-src"),
+      JSON.stringify(seen),
     ).toBe(true);
     expect(problems).toEqual([]);
   });

@@ -120,7 +120,7 @@ describe("the built pane in a workbook (simulated host)", () => {
       .toContain("Live report placed on the new sheet “Echolot yield”");
     const live = await sheet("Echolot yield");
     expect(live.formulas["4,1"]).toBe(
-      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,,0,0.05)",
+      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,0,0,0.05)",
     );
     expect(live.formulas["6,1"]).toBe(
       "=ECHOLOT.SERIESPORTMANTEAU('Forecast errors'!$A$1:$A$71,10,0,\"ljung-box\")",
@@ -137,6 +137,49 @@ describe("the built pane in a workbook (simulated host)", () => {
     expect(snapshot.formulas).toEqual({});
     expect(snapshot.charts).toBe(1);
     expect(snapshot.names).toEqual(["Forecast errors", "Echolot yield", "Echolot yield (2)"]);
+    // Neither report took the selection: the pane still shows the series it was showing.
+    await page.evaluate(() => window.echolotHost.settle());
+    expect(await page.textContent("#series-label")).toBe("yield");
+    expect(await page.textContent("#source-line")).toContain("'Forecast errors'!A1:A71");
+    expect(await page.isDisabled("#place-live")).toBe(false);
+  });
+
+  it("analyses a column whose gaps are #N/A error cells", async () => {
+    await page.evaluate(() => window.echolotHost.select("Forecast errors", "E1:E71"));
+    await expect.poll(() => page.textContent("#series-meta")).toContain("n = 68 · 2 gaps");
+    expect(await page.textContent("#series-label")).toBe("yield");
+    expect(await page.isVisible("#problem")).toBe(false);
+    await page.evaluate(() => window.echolotHost.select("Forecast errors", "A1:A71"));
+    await expect.poll(() => page.textContent("#series-meta")).toContain("n = 70 · no gaps");
+  });
+
+  it("explains a selected ECHOLOT cell that shows an error with the function's own message", async () => {
+    await page.evaluate(() => {
+      const formula = "=ECHOLOT.SERIESLAGCORR('Forecast errors'!$A$1:$A$71,80)";
+      const sheet = window.echolotHost.sheet("Forecast errors");
+      sheet.setFormula("G2", formula, window.echolotErrorValue("#VALUE!"));
+      return window.echolotHost.select("Forecast errors", "G2");
+    });
+    await expect
+      .poll(() => page.textContent("#problem"))
+      .toBe(
+        "Cell 'Forecast errors'!G2 shows #VALUE!. ECHOLOT.SERIESLAGCORR, recomputed from the same arguments, gives #VALUE!: MaxLag must be a whole number from 1 to 69 (the series has 70 values).",
+      );
+    await page.evaluate(() => window.echolotHost.select("Forecast errors", "A1:A71"));
+    await expect.poll(() => page.textContent("#series-label")).toBe("yield");
+  });
+
+  it("goes quiet while hidden, and reads the selection again when shown", async () => {
+    await page.evaluate(() => window.echolotHost.setVisibility("Hidden"));
+    await expect
+      .poll(() => page.evaluate(() => window.echolotHost.selectionHandlers.length))
+      .toBe(0);
+    await page.evaluate(() => window.echolotHost.select("Forecast errors", "C1:C71"));
+    expect(await page.textContent("#series-label")).toBe("yield");
+    await page.evaluate(() => window.echolotHost.setVisibility("Taskpane"));
+    await expect.poll(() => page.textContent("#series-label")).toBe("other");
+    await page.evaluate(() => window.echolotHost.select("Forecast errors", "A1:A71"));
+    await expect.poll(() => page.textContent("#series-label")).toBe("yield");
   });
 
   it("offers the batch view for a selected block", async () => {

@@ -7,7 +7,7 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } fr
 import { tmpdir } from "node:os";
 import { createServer, type Server } from "node:http";
 import { dirname, extname, join, normalize, resolve } from "node:path";
-import { chromium, type BrowserContext } from "playwright-core";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
 
 export const ROOT = resolve(__dirname, "..", "..");
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -24,36 +24,39 @@ const TYPES: Readonly<Record<string, string>> = {
   ".xml": "application/xml",
 };
 
+/** Where a build gets office.js: its local copy (tests, offline) or the CDN (publishing). */
+export type OfficeJsSource = "local" | "cdn";
+
 /** Why a built pane in `dir` cannot be used, or undefined when it is current. */
-function staleness(dir: string): string | undefined {
+function staleness(dir: string, officeJs: OfficeJsSource): string | undefined {
   const page = join(dir, "taskpane.html");
   const bundle = join(dir, "taskpane.js");
   const map = join(dir, "taskpane.js.map");
   if (!existsSync(page) || !existsSync(bundle) || !existsSync(map))
     return `${dir} has no built pane`;
+  const local = readFileSync(page, "utf8").includes('src="office-js/office.js"');
+  if (local !== (officeJs === "local"))
+    return `${dir} is not a build with the ${officeJs} office.js`;
   const built = Math.min(statSync(page).mtimeMs, statSync(bundle).mtimeMs);
   const sources = (JSON.parse(readFileSync(map, "utf8")) as { sources: string[] }).sources
     .map((s) => /^webpack:\/\/[^/]*\/\.\/((?:src|taskpane|demo)\/[^?]+)/.exec(s)?.[1])
     .filter((s): s is string => s !== undefined);
-  for (const local of [...sources, "taskpane/taskpane.html", "taskpane/taskpane.css"]) {
-    const file = join(ROOT, local);
-    if (!existsSync(file) || statSync(file).mtimeMs > built)
-      return `${local} is newer than the build`;
+  const config = ["taskpane/taskpane.html", "taskpane/taskpane.css", "scripts/content-policy.cjs"];
+  for (const file of [...sources, ...config, "webpack.config.js"]) {
+    const path = join(ROOT, file);
+    if (!existsSync(path) || statSync(path).mtimeMs > built)
+      return `${file} is newer than the build`;
   }
   return undefined;
 }
 
-/** The directory of a current build: dist/, or our own build under test-output/ if dist/ is stale. */
-export function builtPane(): string {
-  const dist = join(ROOT, "dist");
-  const reason = staleness(dist);
-  if (reason === undefined) return dist;
-  const own = join(ROOT, "test-output", "pane-build");
-  // Both browser test files may get here at once: one builds, the other waits for it.
+/** Builds into `own` (under test-output/) unless a current build is there already. */
+function buildInto(own: string, officeJs: OfficeJsSource, reason: string): string {
+  // Several test files may get here at once: one builds, the others wait for it.
   const lock = `${own}.lock`;
   mkdirSync(dirname(lock), { recursive: true });
   for (;;) {
-    if (staleness(own) === undefined) return own;
+    if (staleness(own, officeJs) === undefined) return own;
     try {
       mkdirSync(lock);
     } catch {
@@ -61,19 +64,31 @@ export function builtPane(): string {
       continue;
     }
     try {
-      if (staleness(own) === undefined) return own;
-      // Not over dist/: other tests may be reading it right now.
+      if (staleness(own, officeJs) === undefined) return own;
       console.log(`browser tests: ${reason}; building the pane into ${own}`);
       const webpack = join(ROOT, "node_modules", "webpack-cli", "bin", "cli.js");
-      execFileSync(process.execPath, [webpack, "--mode", "production", "--output-path", own], {
-        cwd: ROOT,
-        stdio: "ignore",
-      });
+      const args = ["--mode", "production", "--env", `officeJs=${officeJs}`, "--output-path", own];
+      execFileSync(process.execPath, [webpack, ...args], { cwd: ROOT, stdio: "ignore" });
       return own;
     } finally {
       rmSync(lock, { recursive: true, force: true });
     }
   }
+}
+
+/** The directory of a current local build: dist/, or our own build under test-output/. */
+export function builtPane(): string {
+  const dist = join(ROOT, "dist");
+  const reason = staleness(dist, "local");
+  if (reason === undefined) return dist;
+  // Not over dist/: other tests may be reading it right now.
+  return buildInto(join(ROOT, "test-output", "pane-build"), "local", reason);
+}
+
+/** A current production build that loads office.js from its CDN (never dist/). */
+export function builtCdnPane(): string {
+  const own = join(ROOT, "test-output", "cdn-build");
+  return buildInto(own, "cdn", staleness(own, "cdn") ?? "no CDN build yet");
 }
 
 export interface PaneServer {
@@ -141,4 +156,32 @@ export async function launchChromium(): Promise<Browser> {
       rmSync(profile, { recursive: true, force: true });
     },
   };
+}
+
+/** A content-security violation the page reported: the directive, what it blocked, and where. */
+export interface Violation {
+  readonly directive: string;
+  readonly blocked: string;
+  readonly source: string;
+}
+
+/** From the next navigation on, keeps the page's security-policy violations for `violations`. */
+export async function recordViolations(page: Page): Promise<void> {
+  await page.addInitScript(() => {
+    const seen: { directive: string; blocked: string; source: string }[] = [];
+    Object.assign(window, { echolotViolations: seen });
+    document.addEventListener("securitypolicyviolation", (event) => {
+      seen.push({
+        directive: event.violatedDirective,
+        blocked: event.blockedURI,
+        source: event.sourceFile,
+      });
+    });
+  });
+}
+
+export function violations(page: Page): Promise<Violation[]> {
+  return page.evaluate(
+    () => (window as unknown as { echolotViolations: Violation[] }).echolotViolations,
+  );
 }

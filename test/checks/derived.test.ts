@@ -212,9 +212,9 @@ describe("forecastAudit and its joint test of later lags", () => {
     expect(test.df).toBe(5);
   });
 
-  it("forecastAudit(Series F, horizon 3) uses L = max(default, h − 1) and judges lags 3..12 only", () => {
+  it("forecastAudit(Series F, horizon 3) uses the long-run variance over lags 0..h−1 and judges lags 3..12 only", () => {
     const audit = forecastAudit(seriesF, { horizon: 3 });
-    expect(audit.bias.hacLags).toBe(3);
+    expect(audit.bias.horizon).toBe(3);
     expect(audit.maxLag, "K = h − 1 + min(10, ⌊70/5⌋)").toBe(12);
     expect(audit.rows.filter((r) => !r.counted).map((r) => r.lag)).toEqual([1, 2]);
     expect(audit.falseAlarm.tested).toBe(10);

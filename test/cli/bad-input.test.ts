@@ -53,7 +53,7 @@ const cases: readonly BadCase[] = [
   {
     name: "K as text",
     args: () => ["check", SERIES_F, "--lags", "ten"],
-    message: /--lags must be a number \(got "ten"\)/,
+    message: /--lags must be a number written in decimal \(got "ten"\)/,
   },
   {
     name: "alpha 0",
@@ -103,22 +103,22 @@ const cases: readonly BadCase[] = [
   {
     name: "text mid-series",
     args: () => ["check", column("text.csv", [...numbers(10), "oops", ...numbers(20)])],
-    message: /row 12, column 1 \("value"\) of .*text\.csv holds "oops", which is not a number/,
+    message: /line 12, column 1 \("value"\) of .*text\.csv holds "oops", which is not a number/,
   },
   {
     name: "boolean text",
     args: () => ["check", column("bool.csv", [...numbers(5), "TRUE", ...numbers(30)])],
-    message: /row 7, column 1 .* holds "TRUE"/,
+    message: /line 7, column 1 .* holds "TRUE"/,
   },
   {
     name: "non-finite number",
     args: () => ["check", column("inf.csv", [...numbers(5), "1e999", ...numbers(30)])],
-    message: /row 7, column 1 .* holds Infinity, which is not a finite number/,
+    message: /line 7, column 1 .* holds 1e999, which is not a finite number/,
   },
   {
     name: "Infinity spelled out",
     args: () => ["check", column("inf2.csv", [...numbers(5), "Infinity", ...numbers(30)])],
-    message: /row 7, column 1 .* holds "Infinity"/,
+    message: /line 7, column 1 .* holds "Infinity"/,
   },
   {
     name: "blank-only column",
@@ -143,7 +143,7 @@ const cases: readonly BadCase[] = [
   {
     name: "ragged CSV",
     args: () => ["check", csvFile("ragged.csv", "a,b\n1,2\n3\n4,5\n")],
-    message: /not a well-formed CSV file/,
+    message: /line 3 of .*ragged\.csv has 1 field where line 1 has 2/,
   },
   {
     name: "no numeric column",

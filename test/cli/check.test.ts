@@ -89,7 +89,7 @@ describe("echolot check FILE --json", () => {
       expect(typeof row.beyond).toBe("boolean");
       expect(row.beyond).toBe(Math.abs(row.corr) > row.band);
     }
-    expect(Object.keys(doc.joint).sort()).toEqual(["df", "p", "q", "test"]);
+    expect(Object.keys(doc.joint).sort()).toEqual(["df", "p", "pBound", "q", "reference", "test"]);
     expect(Object.keys(doc.falseAlarm)).toEqual(
       expect.arrayContaining(["tested", "expected", "beyond", "chance"]),
     );
@@ -136,9 +136,11 @@ describe("echolot check FILE (text)", () => {
     expect(result.status).toBe(0);
     expect(result.stderr).toBe("");
     expect(result.stdout).toMatch(/yield: n = 70, gaps 0/);
-    expect(result.stdout.split("\n").filter((l) => /^\s+\d+\s+-?\d\.\d{4}/.test(l))).toHaveLength(
-      10,
-    );
+    // One row per lag: lag, z, corridor, …
+    const rows = result.stdout
+      .split("\n")
+      .filter((l) => /^\s+\d+\s+-?\d+\.\d{2}\s+(inside|between|beyond)\s/.test(l));
+    expect(rows).toHaveLength(10);
     expect(result.stdout).toMatch(/verdict: ■ structure/);
     expect(result.stdout).toMatch(/statistical screen, not a decision/);
   });

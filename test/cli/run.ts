@@ -13,16 +13,24 @@ export interface CliResult {
   readonly stderr: string;
 }
 
-export function runCli(args: readonly string[]): CliResult {
-  const result = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, encoding: "utf8" });
+/** Runs the CLI with `args`, and `input` (text or bytes) on standard input when given. */
+export function runCli(args: readonly string[], input?: string | Buffer): CliResult {
+  const result = spawnSync(process.execPath, [CLI, ...args], {
+    cwd: ROOT,
+    encoding: "utf8",
+    ...(input === undefined ? {} : { input }),
+  });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 
 const scratch = mkdtempSync(join(tmpdir(), "echolot-cli-"));
 
-/** Writes a CSV file into a scratch folder and returns its path. */
-export function csvFile(name: string, text: string): string {
+/** Writes a CSV file (text or bytes) into a scratch folder and returns its path. */
+export function csvFile(name: string, text: string | Buffer): string {
   const path = join(scratch, name);
   writeFileSync(path, text);
   return path;
 }
+
+/** The path of the built CLI, for runs through a shell. */
+export const CLI_PATH = CLI;

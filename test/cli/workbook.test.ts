@@ -18,8 +18,9 @@ describe("echolot workbook FILE.csv --out book.xlsx", () => {
     const out = outPath("f.xlsx");
     const result = runCli(["workbook", SERIES_F, "--out", out]);
     expect(result.status, result.stderr).toBe(0);
+    expect(result.stdout).toMatch(/^read: column 1 \("yield"\) of .*series-f\.csv\n/);
     expect(result.stdout).toMatch(
-      /^wrote .*f\.xlsx: one column, portable verdict at writing: structure/,
+      /\nwrote .*f\.xlsx: one column, portable verdict at writing: structure/,
     );
     const book = new ExcelJS.Workbook();
     await book.xlsx.readFile(out);
@@ -43,14 +44,14 @@ describe("echolot workbook FILE.csv --out book.xlsx", () => {
     writeFileSync(out, "not a workbook");
     const refused = runCli(["workbook", SERIES_F, "--out", out]);
     expect(refused.status).toBe(2);
-    expect(refused.stderr).toMatch(/exists; nothing was written.*--force/);
+    expect(refused.stderr).toMatch(/already exists: give --force to replace it/);
     expect(readFileSync(out, "utf8")).toBe("not a workbook");
     const forced = runCli(["workbook", SERIES_F, "--out", out, "--force"]);
     expect(forced.status, forced.stderr).toBe(0);
     expect(statSync(out).size).toBeGreaterThan(10_000);
   });
 
-  it("with --batch writes one portable row per numeric column, and keeps a row for one it cannot analyse", async () => {
+  it("with --batch writes one portable row per column of numbers, and keeps a row for each it cannot analyse", async () => {
     const rows = Array.from(
       { length: 60 },
       (_, t) => `${t},${Math.sin(t * 1.3)},${(t * 7) % 11},5`,
@@ -65,10 +66,39 @@ describe("echolot workbook FILE.csv --out book.xlsx", () => {
     const summary = book.getWorksheet("Portable batch");
     const labels = [7, 8, 9, 10].map((r) => summary?.getCell(r, 1).value);
     expect(labels).toEqual(["t", "wave", "saw", "flat"]);
+    // t counts 0, 1, 2, …: the reader leaves it out, as `echolot batch` does, and says why.
+    expect(String(summary?.getCell(7, 7).value)).toMatch(/^not analysed: /);
     expect(String(summary?.getCell(10, 7).value)).toMatch(/constant/);
+    // wave is the first report block on the work sheet.
     expect((summary?.getCell(8, 6).value as { formula: string }).formula).toBe(
-      "'Portable work'!$AE$7",
+      "'Portable work'!$B$7",
     );
+  });
+
+  it("reads the file as check does (standard input, decimal comma, gap words) and never writes over it", async () => {
+    const values = Array.from({ length: 60 }, (_, t) => (Math.cos(t * 0.7) * 2).toFixed(3));
+    values[10] = "nan";
+    const text = `woche;fehler\n${values.map((v, t) => `${t + 1};${v.replace(".", ",")}`).join("\n")}\n`;
+    const out = outPath("comma.xlsx");
+    const result = runCli(
+      ["workbook", "-", "--column", "fehler", "--na", "nan", "--out", out],
+      text,
+    );
+    expect(result.status, result.stderr).toBe(0);
+    expect(result.stdout).toMatch(/^read: column 2 \("fehler"\) of standard input/);
+    const book = new ExcelJS.Workbook();
+    await book.xlsx.readFile(out);
+    const data = book.getWorksheet("Data");
+    expect(data?.getCell("B2").value).toBe(Number(values[0]));
+    expect(data?.getCell("B12").value).toEqual({ error: "#N/A" });
+    expect(data?.getCell("A3").value).toBe(2);
+
+    const input = csvFile("own.csv", text.replace(/;/g, ",").replace(/(\d),(\d)/g, "$1.$2"));
+    const before = readFileSync(input, "utf8");
+    const over = runCli(["workbook", input, "--na", "nan", "--out", input, "--force"]);
+    expect(over.status).toBe(2);
+    expect(over.stderr).toMatch(/is the input file/);
+    expect(readFileSync(input, "utf8")).toBe(before);
   });
 
   it("refuses what a portable report cannot hold, saying why", () => {

@@ -115,7 +115,7 @@ describe("autocorrelation(series, K) properties (biased estimator, Box, Jenkins 
           const ry = allCorrelations(seriesFromNumbers(y));
           // Each transformed value carries a rounding error up to δ = eps·(|a|/|b| + |x|) in x's
           // units; a perturbation δ per value moves r_k by at most about 4·√n·δ/sd(x).
-          const maxAbs = Math.max(...x.map(Math.abs));
+          const maxAbs = x.reduce((m, v) => Math.max(m, Math.abs(v)), 0);
           const delta = EPS * (Math.abs(a) / Math.abs(b) + maxAbs);
           const tol = 1e-12 + (8 * Math.sqrt(x.length) * delta) / standardDeviation(x);
           for (let k = 1; k < rx.length; k++) {

@@ -53,7 +53,7 @@ describe("directLagProductSums(a, K) against exact sums of the doubles", () => {
     const random = seededRandom(length);
     const a = new Float64Array(length);
     for (let t = 0; t < length; t++) a[t] = 1e6 + random.normal();
-    const maxLag = Math.max(...lags);
+    const maxLag = lags.reduce((m, k) => Math.max(m, k), 0);
     const exact = exactLagSums(a, maxLag);
     for (const k of lags) {
       const sums = directLagProductSums(a, k);

@@ -29,6 +29,8 @@ interface Scenario {
   /** Lags beyond the outer (Šidák) corridor as well. */
   readonly outer?: readonly number[];
   readonly jointP?: number;
+  /** The watch rule's level w* (default alpha). */
+  readonly watchLevel?: number;
   readonly subject?: "series" | "squares";
 }
 
@@ -57,6 +59,17 @@ function scenario(s: Scenario): VerdictInput {
     season: s.season ?? null,
     lags,
     joint: { test: "ljung-box", q: 12.3456, df: maxLag, p: s.jointP ?? 0.5 },
+    // Constructed levels: the joint p judged at alpha itself, the watch rule at `watchLevel`.
+    levels: {
+      reference: "permutation",
+      draws: 499,
+      structureLevel: alpha,
+      criticalQ: NaN,
+      outerLevel: 3.5,
+      watchLevel: s.watchLevel ?? alpha,
+      jointP: { p: s.jointP ?? 0.5, reference: "permutation", draws: 499, bound: false },
+      jointRejects: (s.jointP ?? 0.5) < alpha,
+    },
     falseAlarm: falseAlarmNote(maxLag, alpha, beyond),
     ...(s.subject === undefined ? {} : { subject: s.subject }),
   };
@@ -102,7 +115,7 @@ describe("judge(input): structure", () => {
     expect(verdict.word).toBe("structure");
     expect(verdict.triggers.jointRejects).toBe(true);
     expect(verdict.reason).toMatch(
-      /^Ljung–Box over 10 lags rejects white noise \(Q = 12\.35, df 10, p = 0\.001\)\./,
+      /^Ljung–Box over 10 lags rejects white noise \(Q = 12\.35, df 10, p = 0\.001 by permutation of 499 draws\)\. The joint test and the all-lags corridor together are set to fire for 5% of pure noise; each is judged at 5%\./,
     );
   });
 
@@ -133,7 +146,7 @@ describe("judge(input): watch", () => {
     expect(verdict.word).toBe("watch");
     expect(verdict.triggers.lagOne).toBe(true);
     expect(verdict.reason).toMatch(
-      /^Lag 1 \(r = 0\.25\) crosses its band, though Ljung–Box over 10 lags does not reject \(p = 0\.2\)\./,
+      /^Lag 1 \(r = 0\.25\) lies beyond the watch line, though Ljung–Box over 10 lags does not reject \(p = 0\.2 by permutation of 499 draws\)\. The watch line \(\|z\| > 1\.96\) is set so that lag 1, the seasonal lags and the crossing count together raise watch for at most 5% of pure noise\./,
     );
   });
 
@@ -141,7 +154,7 @@ describe("judge(input): watch", () => {
     const verdict = judged({ season: 4, beyond: [8] });
     expect(verdict.word).toBe("watch");
     expect(verdict.triggers.seasonalLags).toEqual([8]);
-    expect(verdict.reason).toMatch(/^Seasonal lag 8 \(r = 0\.25\) crosses its band/);
+    expect(verdict.reason).toMatch(/^Seasonal lag 8 \(r = 0\.25\) lies beyond the watch line/);
   });
 
   it("judge(seasonal lag m beyond its band) is watch", () => {
@@ -179,7 +192,7 @@ describe("judge(input): clear", () => {
     const verdict = judged({ jointP: 0.62 });
     expect(verdict.word).toBe("clear");
     expect(verdict.reason).toBe(
-      "No leftover structure found: Ljung–Box over 10 lags gives p = 0.62. 10 lags tested at 5%: about 0.5 would cross the band by chance even for pure noise; none did.",
+      "No leftover structure found: Ljung–Box over 10 lags gives p = 0.62 by permutation of 499 draws. 10 lags tested at 5%: about 0.5 would cross the band by chance even for pure noise; none did.",
     );
   });
 
@@ -239,23 +252,32 @@ describe("defaultMaxLag(n, season) and lagTable's default lags (common practice 
 });
 
 describe("lagTable(series).verdict end to end", () => {
-  it("lagTable(Series F) is structure: Ljung–Box over 10 lags rejects (p 0.017)", () => {
-    // Series F Ljung–Box Q(10) p = 0.017326 (derived, METHODS.md) < 0.05.
-    const { verdict } = lagTable(seriesFromNumbers(readSeriesF()));
+  it("lagTable(Series F) is structure: Ljung–Box over 10 lags rejects, p by permutation", () => {
+    // Series F Ljung–Box Q(10) = 21.59155 (derived, METHODS.md; χ² p 0.017). With 70 values the
+    // verdict refers Q to its permutation distribution, and says so.
+    const { verdict, levels } = lagTable(seriesFromNumbers(readSeriesF()));
     expect(verdict.word).toBe("structure");
+    expect(levels.reference).toBe("permutation");
     expect(verdict.reason).toMatch(
-      /^Ljung–Box over 10 lags rejects white noise \(Q = 21\.59, df 10, p = 0\.017\)/,
+      /^Ljung–Box over 10 lags rejects white noise \(Q = 21\.59, df 10, p = 0\.0\d+ by permutation of 499 draws\)/,
     );
     expect(verdict.reason).toMatch(
       /10 lags tested at 5%: about 0\.5 would cross the band by chance even for pure noise; /,
     );
   });
 
-  it("lagTable(series, alpha 0.01) judges Series F at 1% and no longer rejects", () => {
-    const { verdict, joint } = lagTable(seriesFromNumbers(readSeriesF()), { alpha: 0.01 });
+  it("lagTable(series, alpha 0.01) judges Series F at 1% with levels of its own", () => {
+    const { verdict, joint, levels, rows } = lagTable(seriesFromNumbers(readSeriesF()), {
+      alpha: 0.01,
+    });
+    // Series F: Ljung–Box χ² p(10) = 0.017 (derived, METHODS.md), above 1%.
     expect(joint.p).toBeGreaterThan(0.01);
-    // Lag 1 (r = −0.39, z = −3.26) still crosses its 1% band (2.576/√70 = 0.308): watch.
-    expect(verdict.word).toBe("watch");
+    expect(levels.jointP.p).toBeGreaterThan(0.01);
+    expect(levels.jointRejects).toBe(false);
+    // Lag 1 (r = −0.39, z = −3.26, derived): beyond the all-lags corridor exactly when the
+    // calibrated corridor is narrower than 3.26; the word follows that rule.
+    const lagOne = Math.abs(rows[0]?.z ?? NaN);
+    expect(verdict.word).toBe(lagOne > levels.outerLevel ? "structure" : "watch");
     expect(verdict.reason).toContain("10 lags tested at 1%");
   });
 });

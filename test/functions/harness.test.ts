@@ -64,8 +64,9 @@ function numberAt(result: CellResult, r: number, c: number): number {
 }
 
 /** The cells SERIESLAGTABLE should spill for one row of the core's lag table. */
-function lagTableCells(row: LagRow): number[] {
-  return [row.lag, row.correlation, row.partial, row.z, row.pLag, row.pSidak, row.jointP];
+function lagTableCells(row: LagRow): (number | string)[] {
+  const zone = row.outer ? "beyond" : row.beyond ? "between" : "inside";
+  return [row.lag, row.correlation, row.partial, row.z, zone, row.pLag, row.pSidak];
 }
 
 /** Column of numbers → plain array (each row one cell). */
@@ -111,9 +112,9 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
       "autocorrelation",
       "partial autocorrelation",
       "z",
+      "corridor",
       "p (this lag)",
       "p (Šidák, 10 lags)",
-      "p (Ljung–Box to lag)",
     ]);
     expect(result.length).toBe(11);
     coreF10.rows.forEach((row, i) => {
@@ -149,7 +150,7 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
     );
   });
 
-  it("matches the Series F partials and Ljung–Box p-values derived with the published formulas", () => {
+  it("matches the Series F partials derived with the published formula, and names each corridor", () => {
     const result = call("SERIESLAGTABLE", seriesFColumn, 10);
     // Derived from the Series F data with the Durbin–Levinson recursion (shared reference
     // METHODS.md, 6 decimals).
@@ -157,15 +158,9 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
     partials.forEach((phi, i) =>
       expectClose(numberAt(result, i + 1, 2), phi, { abs: 5.1e-7 }, `Series F partial ${i + 1}`),
     );
-    // Derived from the Series F data with the Ljung–Box formula (METHODS.md): p at K = 1, 5, 10.
-    const joint: [number, number, number][] = [
-      [1, 0.000862, 5e-7],
-      [5, 0.000761, 5e-7],
-      [10, 0.017326, 5e-7],
-    ];
-    for (const [k, p, tol] of joint) {
-      expectClose(numberAt(result, k, 6), p, { abs: tol }, `Series F Ljung–Box p at lag ${k}`);
-    }
+    // The corridor column: lag 1 (z = −3.26) lies beyond the all-lags corridor (±2.80 for 10
+    // lags), lag 2 (z = 2.55) between the corridors, lag 3 (z = −1.39) inside.
+    expect([1, 2, 3].map((k) => result[k]?.[4])).toEqual(["beyond", "between", "inside"]);
   });
 
   it("gives z = r_k·√n and p (this lag) from the two-sided normal tail under the noise band", () => {
@@ -173,8 +168,8 @@ describe("SERIESLAGTABLE(series, maxLag)", () => {
     // Printed r_1 (e-Handbook §6.4.4.9) times √70: the noise band's z, to the printed digits.
     expectClose(numberAt(result, 1, 3), -0.389878319 * Math.sqrt(70), { abs: 5e-9 }, "z_1");
     // Šidák: 1 − (1 − p)^10 for the lag's own p (Šidák 1967), from the table's own p.
-    const p1 = numberAt(result, 1, 4);
-    expectClose(numberAt(result, 1, 5), 1 - (1 - p1) ** 10, { rel: 1e-12 }, "Šidák p of lag 1");
+    const p1 = numberAt(result, 1, 5);
+    expectClose(numberAt(result, 1, 6), 1 - (1 - p1) ** 10, { rel: 1e-12 }, "Šidák p of lag 1");
   });
 
   it("reads a row range exactly as the same values in a column", () => {

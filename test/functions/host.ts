@@ -60,8 +60,45 @@ export class HostError {
   }
 }
 
-/** An error cell as it reaches an `any` parameter when functions.json allows error values. */
+/**
+ * An error cell as it reaches an `any` parameter when functions.json carries
+ * `allowErrorForDataTypeAny` (learn.microsoft.com, "Handle and return errors from your custom
+ * function": error codes supported as custom function input errors): the runtime's error object.
+ */
 export const errorCell = (code: string): HostError => new HostError(code);
+
+/** Excel.ErrorCellValueType of each error code (@types/office-js, Excel.ErrorCellValueType). */
+const ERROR_TYPES: Readonly<Record<string, string>> = {
+  "#N/A": "NotAvailable",
+  "#VALUE!": "Value",
+  "#DIV/0!": "Div0",
+  "#NUM!": "Num",
+  "#NULL!": "Null",
+  "#NAME?": "Name",
+  "#REF!": "Ref",
+  "#SPILL!": "Spill",
+  "#CALC!": "Calc",
+};
+
+/**
+ * An error cell as it reaches an `any` parameter when functions.json also carries
+ * `allowCustomDataForDataTypeAny` (learn.microsoft.com, "Use data types with custom functions in
+ * Excel": "A custom function can accept a data types error object"): an Excel.ErrorCellValue,
+ * such as `{ type: "Error", basicValue: "#N/A", errorType: "NotAvailable" }`
+ * (@types/office-js, Excel.NotAvailableErrorCellValue).
+ */
+export const dataTypeErrorCell = (code: string) => ({
+  type: "Error",
+  basicValue: code,
+  errorType: ERROR_TYPES[code] ?? "Unknown",
+});
+
+/** The error cell's shape for this functions.json: a data-type object when its flag is on. */
+export function errorCellFor(metadata: FunctionsJson, code: string): unknown {
+  return metadata.allowCustomDataForDataTypeAny === true
+    ? dataTypeErrorCell(code)
+    : errorCell(code);
+}
 
 export type CellResult = (number | string)[][];
 export type Invocation = { readonly value: CellResult } | { readonly error: HostError };
@@ -82,6 +119,7 @@ export interface FunctionMetadata {
 
 export interface FunctionsJson {
   readonly allowErrorForDataTypeAny?: boolean;
+  readonly allowCustomDataForDataTypeAny?: boolean;
   readonly functions: readonly FunctionMetadata[];
 }
 
@@ -93,12 +131,44 @@ export interface LoadedAddIn {
   /** Functions in the order the bundle associated them. */
   readonly registered: readonly string[];
   readonly metadata: FunctionsJson;
+  /** The bundle's registry of functions by id, as the pane finds it on the page's global scope. */
+  readonly byId: Readonly<Record<string, (...args: unknown[]) => unknown>>;
   /** Calls `id` with `args`, padding omitted trailing parameters with null. */
   invoke(id: string, ...args: unknown[]): Invocation;
 }
 
-/** Loads dist/functions.js into a fresh global scope with a fake host. */
-export function loadBuiltFunctions(): LoadedAddIn {
+/** The shape error cells take in arguments: as the flags in functions.json say, or forced. */
+export type ErrorShape = "flags" | "error-object" | "data-type";
+
+/**
+ * An argument as the host passes it: every error cell (written in tests as `errorCell(code)`)
+ * in the shape the metadata's flags select.
+ */
+function asPassed(arg: unknown, shape: (code: string) => unknown): unknown {
+  if (arg instanceof HostError) return shape(arg.code);
+  if (Array.isArray(arg)) return arg.map((item: unknown) => asPassed(item, shape));
+  return arg;
+}
+
+/** The first error cell in an argument, if any. */
+function firstError(arg: unknown): HostError | undefined {
+  if (arg instanceof HostError) return arg;
+  if (!Array.isArray(arg)) return undefined;
+  for (const item of arg as unknown[]) {
+    const found = firstError(item);
+    if (found !== undefined) return found;
+  }
+  return undefined;
+}
+
+/**
+ * Loads dist/functions.js into a fresh global scope with a fake host. Error cells reach the
+ * functions as the host sends them: without `allowErrorForDataTypeAny` the host answers with the
+ * input's error and never calls the function (learn.microsoft.com, "Handle and return errors from
+ * your custom function"); with it, as the runtime's error object; with
+ * `allowCustomDataForDataTypeAny` too, as a data-type error object (see `dataTypeErrorCell`).
+ */
+export function loadBuiltFunctions(errorShape: ErrorShape = "flags"): LoadedAddIn {
   const metadata = readFunctionsJson();
   const bundle = distFile("functions.js");
   requireFreshBundle(bundle);
@@ -132,8 +202,19 @@ export function loadBuiltFunctions(): LoadedAddIn {
       throw new Error(`${id} takes ${declared.parameters.length} arguments, got ${args.length}`);
     }
     const padded = declared.parameters.map((_, i) => (i < args.length ? args[i] : null));
+    if (errorShape === "flags" && metadata.allowErrorForDataTypeAny !== true) {
+      const passedOn = padded.map(firstError).find((e) => e !== undefined);
+      if (passedOn !== undefined) return { error: new HostError(passedOn.code) };
+    }
+    const shape =
+      errorShape === "data-type"
+        ? dataTypeErrorCell
+        : errorShape === "error-object"
+          ? errorCell
+          : (code: string) => errorCellFor(metadata, code);
+    const passed = padded.map((arg) => asPassed(arg, shape));
     try {
-      const value = handler(...padded);
+      const value = handler(...passed);
       if (value instanceof HostError) return { error: value };
       return { value: value as CellResult };
     } catch (error) {
@@ -142,7 +223,9 @@ export function loadBuiltFunctions(): LoadedAddIn {
       return { error: new HostError(ErrorCode.invalidValue, undefined) };
     }
   }
-  return { registered, metadata, invoke };
+  const byId = (context as { echolotCellFunctions?: LoadedAddIn["byId"] }).echolotCellFunctions;
+  if (byId === undefined) throw new Error("functions.js put no echolotCellFunctions registry");
+  return { registered, metadata, invoke, byId };
 }
 
 /** The spilled value of an invocation, or a thrown description of the error it gave. */

@@ -3,24 +3,8 @@ import { lagTable, seriesFromCells } from "../../src/core";
 import type { RangeRead } from "../../taskpane/host/readRange";
 import { HostSession } from "../../taskpane/host/session";
 import { FakeExcel } from "./fakeExcel";
+import { recorder } from "./recorder";
 import { seriesFColumn } from "./seriesF";
-
-function recorder() {
-  const reads: RangeRead[] = [];
-  const pins: (string | null)[] = [];
-  const errors: unknown[] = [];
-  return {
-    reads,
-    pins,
-    errors,
-    listener: {
-      onRead: (read: RangeRead) => reads.push(read),
-      onProgress: () => {},
-      onError: (error: unknown) => errors.push(error),
-      onPinChange: (pinned: string | null) => pins.push(pinned),
-    },
-  };
-}
 
 function lagOne(read: RangeRead | undefined): number {
   if (read === undefined) throw new Error("no reading");

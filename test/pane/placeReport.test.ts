@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { lagTable, seriesFromCells, type LagTable } from "../../src/core";
-import { PALETTE, liveReportPlan, snapshotReportPlan } from "../../src/report";
+import { PALETTE, ZONE_SHORT, liveReportPlan, rowZone, snapshotReportPlan } from "../../src/report";
 import { absoluteReference } from "../../taskpane/host/address";
 import { literalText, placeReport } from "../../taskpane/host/placeReport";
 import { readSelectedRange } from "../../taskpane/host/readRange";
@@ -32,7 +32,7 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
     expect(placed.sheetName).toBe("Echolot yield");
     const sheet = host.sheet("Echolot yield");
     expect(sheet.get(4, 1).formula).toBe(
-      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,,0,0.05)",
+      "=ECHOLOT.SERIESNOISECHECK('Forecast errors'!$A$1:$A$71,10,0,0,0.05)",
     );
     expect(sheet.get(6, 1).formula).toBe(
       "=ECHOLOT.SERIESPORTMANTEAU('Forecast errors'!$A$1:$A$71,10,0,\"ljung-box\")",
@@ -55,7 +55,9 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
       expect(f.replace(/'Forecast errors'!\$A\$1:\$A\$71/g, "")).not.toMatch(/!/);
     }
     expect(host.writes.every((w) => w.sheet === "Echolot yield" && !w.overwrote)).toBe(true);
-    expect(host.activeSheet).toBe("Echolot yield");
+    // The report sheet is not activated, so the selection (and the pane) stays on the source.
+    expect(host.activeSheet).toBe("Forecast errors");
+    expect(host.selection).toEqual({ sheet: "Forecast errors", range: "A1:A71" });
   });
 
   it("adds a native chart bound to the table: corridors as stacked areas, diamonds in our palette", async () => {
@@ -124,7 +126,7 @@ describe("placeReport(run, liveReportPlan(table, source))", () => {
         x: "A10:A19",
         type: "LineMarkers",
         marker: "Diamond",
-        colour: "#E69F00",
+        colour: "#8A5F00",
       },
       {
         name: "beyond all-lags corridor",
@@ -189,9 +191,9 @@ describe("placeReport(run, snapshotReportPlan(table))", () => {
         r?.correlation,
         r?.partial,
         r?.z,
+        r === undefined ? "" : ZONE_SHORT[rowZone(r)],
         r?.pLag,
         r?.pSidak,
-        r?.jointP,
       ]);
     });
     // One diamond column per zone holds each lag's z; the other two are empty.

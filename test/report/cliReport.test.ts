@@ -1,6 +1,6 @@
 import { mkdtempSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join } from "node:path";
+import { dirname, join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { lagTable, seriesFromValues } from "../../src/core";
 import { evidenceChartSvg, jointRibbonSvg } from "../../src/report";
@@ -19,15 +19,21 @@ describe("echolot report FILE.csv --out report.html", () => {
     const html = readFileSync(target, "utf8");
     const table = lagTable(seriesF(), {});
     expect(html).toContain(
-      evidenceChartSvg(table, {
-        view: "correlation",
-        width: 560,
-        height: 240,
-        idPrefix: "report-correlation",
-      }),
+      evidenceChartSvg(table, { view: "correlation", width: 320, idPrefix: "report-correlation" }),
     );
-    expect(html).toContain(jointRibbonSvg(table, { width: 560, idPrefix: "report-ribbon" }));
+    expect(html).toContain(
+      jointRibbonSvg(table, { width: 320, idPrefix: "report-ribbon-correlation" }),
+    );
     expect(html).not.toMatch(/<script|<link|<img|@import|url\(/i);
+    // The date of making and the version in package.json, and the input by its file name only.
+    const version = (JSON.parse(readFileSync("package.json", "utf8")) as { version: string })
+      .version;
+    expect(html).toMatch(
+      new RegExp(
+        `Made \\d{4}-\\d\\d-\\d\\d \\d\\d:\\d\\d UTC by Echolot ${version.replace(/\./g, "\\.")} from series-f\\.csv, column “yield”\\.`,
+      ),
+    );
+    expect(html).not.toContain("test/fixtures");
   });
 
   it("takes the options of check, and escapes a hostile column name", () => {
@@ -53,19 +59,39 @@ describe("echolot report FILE.csv --out report.html", () => {
     const html = readFileSync(target, "utf8");
     expect(html).not.toContain("<img");
     expect(html).toContain("&lt;img src=x onerror=alert(1)&gt;");
-    expect(html).toContain("12 lags · alpha 0.05 · bartlett bands");
+    expect(html).toContain("12 lags · alpha 0.05 · Bartlett bands");
+    expect(html).not.toContain(dirname(file));
     const table = lagTable(
       seriesFromValues(values.map(Number), { label: "<img src=x onerror=alert(1)>" }),
       { maxLag: 12, season: 6, bandKind: "bartlett" },
     );
     expect(html).toContain(
-      evidenceChartSvg(table, {
-        view: "partial",
-        width: 560,
-        height: 240,
-        idPrefix: "report-partial",
-      }),
+      evidenceChartSvg(table, { view: "partial", width: 320, idPrefix: "report-partial" }),
     );
+  });
+
+  it("gives a batch report for a file with several columns of numbers, and one column's report with --column", () => {
+    const rows = readFileSync("demo/ternpoint-roasters-forecast-errors.csv", "utf8")
+      .trim()
+      .split(/\r?\n/)
+      .map((line) => line.split(",").slice(0, 5).join(","));
+    const file = csvFile("four-blends.csv", `${rows.join("\n")}\n`);
+    const target = join(out, "four.html");
+    const result = runCli(["report", file, "--season", "13", "--out", target]);
+    expect(result.status, result.stderr).toBe(0);
+    expect(result.stdout).toMatch(/^wrote .*four\.html: batch report of 4 columns, \d+ flagged/);
+    const html = readFileSync(target, "utf8");
+    expect(html).toContain("Which of these 4 series still carry a pattern");
+    expect(html).toContain('<table class="figures batch">');
+    expect(html.match(/<details class="item"/g)).toHaveLength(4);
+    expect(html).toContain("from four-blends.csv.");
+    expect(html).not.toContain(dirname(file));
+    const one = join(out, "one.html");
+    const single = runCli(["report", file, "--column", "Night Ferry", "--out", one]);
+    expect(single.status, single.stderr).toBe(0);
+    const page = readFileSync(one, "utf8");
+    expect(page).toContain("<h1>Night Ferry</h1>");
+    expect(page).not.toContain('<details class="item"');
   });
 
   it("refuses without --out, or with --json, saying what to do", () => {

@@ -1,8 +1,15 @@
 import { describe, expect, it } from "vitest";
-import { lagTable, seriesFromNumbers, type LagTable } from "../../src/core";
+import { lagTable, referencedPPhrase, seriesFromNumbers, type LagTable } from "../../src/core";
 import { ar1, movingAverage, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
-import { evidenceChartSvg, PALETTE, PIN_LIMIT, ZONE_COLOURS } from "../../src/report";
+import {
+  evidenceChartSvg,
+  jointRibbonSvg,
+  PALETTE,
+  PIN_LIMIT,
+  ZONE_COLOURS,
+  zLimit,
+} from "../../src/report";
 import { expectClose } from "../helpers/expectClose";
 import { corridors, diamonds, elements, seriesF, withClass } from "./chartTree";
 
@@ -41,7 +48,7 @@ describe("evidenceChartSvg(table)", () => {
       expectClose(step, steps[0] as number, { abs: 0.15 }, "lag column step (px)");
   });
 
-  it("puts the corridors at ±z(1−α/2) and at the Šidák level for K lags (K = 24, α = 0.05: ±1.959964 and ±3.07)", () => {
+  it("puts the corridors at ±z(1−α/2) and at the verdict's all-lags level (K = 24, α = 0.05)", () => {
     const table = lagTable(seriesF(), { maxLag: 24, alpha: 0.05 });
     const svg = evidenceChartSvg(table);
     const found = corridors(svg);
@@ -50,11 +57,10 @@ describe("evidenceChartSvg(table)", () => {
     if (inner === undefined || outer === undefined) throw new Error("missing corridor");
     // z_0.975 = 1.959964: Fisher (1925), Table 1; OEIS/printed value in test/fixtures/normal-quantiles.tsv.
     expectClose(inner.level, 1.959964, { abs: 1e-6 }, "inner corridor level, alpha 0.05");
-    // Šidák (1967): a = 1 − 0.95^(1/24) = 0.0021349; z_{1−a/2} ≈ 3.07 (from memory, 3 significant figures).
-    expectClose(outer.level, 3.07, { abs: 0.005 }, "outer corridor level, K = 24, alpha 0.05");
-    // …and it lies between the printed z_0.995 = 2.575829 (OEIS A329283) and z_0.999 = 3.0902
-    // (normal quantile table in test/fixtures/normal-quantiles.tsv), as 0.995 < 1 − a/2 < 0.999.
-    expect(outer.level > 2.575829 && outer.level < 3.0902).toBe(true);
+    // The outer corridor is the core's calibrated level for all 24 lags: drawn as given, and
+    // wider than one lag's own corridor.
+    expectClose(outer.level, table.outerLevel, { rel: 1e-9 }, "outer corridor level, K = 24");
+    expect(outer.level).toBeGreaterThan(inner.level);
     // Nested, centred on zero, in the palette's colours.
     const { zero, perUnit } = yScale(svg);
     expectClose((outer.top + outer.bottom) / 2, zero, { abs: 0.1 }, "outer corridor centre (px)");
@@ -95,7 +101,8 @@ describe("evidenceChartSvg(table)", () => {
       }
     }
     expect([...seen].sort()).toEqual(["between", "beyond", "inside"]);
-    expect(ZONE_COLOURS).toEqual({ inside: "#56636F", between: "#E69F00", beyond: "#D55E00" });
+    // Okabe–Ito slate and vermillion; the orange darkened to 60% for 3:1 contrast (palette.ts).
+    expect(ZONE_COLOURS).toEqual({ inside: "#56636F", between: "#8A5F00", beyond: "#D55E00" });
   });
 
   it("shows a vermillion diamond exactly when the verdict's single-lag rule fires, at those lags", () => {
@@ -189,8 +196,20 @@ describe("evidenceChartSvg(table)", () => {
     expect(lines.every((e) => e.attributes.class === "tick")).toBe(true);
     const rects = elements(svg).filter((e) => e.local === "rect");
     expect(
-      rects.every((e) => /^(corridor (inner|outer)|season)$/.test(e.attributes.class ?? "")),
+      rects.every((e) =>
+        /^(corridor (inner|outer)|corridor-edge (inner|outer)|season)$/.test(
+          e.attributes.class ?? "",
+        ),
+      ),
     ).toBe(true);
+    // The corridors' edges are solid outlines of the same rectangles, not lines of their own.
+    const edges = withClass(svg, "corridor-edge");
+    expect(edges.map((e) => [e.attributes.fill, e.attributes.stroke])).toEqual([
+      ["none", PALETTE.outerEdge],
+      ["none", PALETTE.innerEdge],
+    ]);
+    const fills = withClass(svg, "corridor");
+    expect(edges.map((e) => e.attributes.y)).toEqual(fills.map((e) => e.attributes.y));
   });
 
   it("escapes every text: a label <img src=x onerror=alert(1)> stays text", () => {
@@ -253,7 +272,8 @@ describe("evidenceChartSvg(table)", () => {
   });
 
   it("describes itself for assistive technology: a title and a description with the figures", () => {
-    const svg = evidenceChartSvg(lagTable(seriesF(), { maxLag: 24 }), { idPrefix: "f" });
+    const table = lagTable(seriesF(), { maxLag: 24 });
+    const svg = evidenceChartSvg(table, { idPrefix: "f" });
     const root = elements(svg)[0];
     expect(root?.attributes.role).toBe("img");
     expect(root?.attributes["aria-labelledby"]).toBe("f-title f-desc");
@@ -261,6 +281,71 @@ describe("evidenceChartSvg(table)", () => {
     expect(desc).toContain("Lags beyond the all-lags corridor: 1.");
     expect(desc).toContain("Lags between the corridors: 2.");
     expect(desc).toContain("±1.96");
-    expect(desc).toContain("±3.07");
+    expect(desc).toContain(`all-lags corridor ±${Number(table.outerLevel.toPrecision(3))} for 24`);
+  });
+
+  it("names its values, band kind, joint test and the p the verdict reads, with its reference, on every tab", () => {
+    const series = seriesF();
+    const robust = lagTable(series, { maxLag: 12, bandKind: "robust", testKind: "robust" });
+    const captions = (svg: string) => withClass(svg, "caption").map((e) => e.text);
+    expect(captions(evidenceChartSvg(robust))).toEqual([
+      "Autocorrelation, robust bands (volatility)",
+      "Joint test robust Q* over lags 1–12:",
+      referencedPPhrase(robust.levels.jointP),
+    ]);
+    expect(captions(evidenceChartSvg(robust))[2]).toMatch(/^p [=<] \S+ (by|from) /);
+    expect(captions(evidenceChartSvg(robust, { view: "partial" }))[0]).toBe(
+      "Partial autocorrelation, bands (se 1/√n)",
+    );
+    const squares = lagTable(series, { maxLag: 12, testKind: "squares" });
+    expect(captions(evidenceChartSvg(squares)).slice(0, 2)).toEqual([
+      "Squared deviations, noise bands (se 1/√n)",
+      "Joint test McLeod–Li over lags 1–12:",
+    ]);
+    const fitted = lagTable(series, { maxLag: 12, bandKind: "bartlett", fittedParams: 2 });
+    expect(captions(evidenceChartSvg(fitted)).slice(0, 2)).toEqual([
+      "Autocorrelation, Bartlett bands",
+      "Joint test Ljung–Box over lags 1–12:",
+    ]);
+  });
+
+  it("keeps one y scale on every tab, ±6 (or just past a wider outer corridor), and says so", () => {
+    const series = seriesFromNumbers(ar1(seededRandom(5), 200, 0.5));
+    const table = lagTable(series, { maxLag: 10 });
+    const squares = lagTable(series, { maxLag: 10, testKind: "squares" });
+    const charts = [
+      evidenceChartSvg(table),
+      evidenceChartSvg(table, { view: "partial" }),
+      evidenceChartSvg(squares),
+    ];
+    const scales = charts.map((svg) => yScale(svg));
+    for (const s of scales) {
+      expectClose(s.zero, scales[0]?.zero ?? NaN, { abs: 0.1 }, "z = 0 row (px) across tabs");
+      expectClose(s.perUnit, scales[0]?.perUnit ?? NaN, { rel: 1e-3 }, "px per z across tabs");
+    }
+    for (const svg of charts) {
+      expect(elements(svg)[0]?.attributes["data-z-limit"]).toBe(String(PIN_LIMIT));
+      expect(withClass(svg, "scale-rule")[0]?.text).toBe(
+        "z scale ±6 on every tab; beyond it: pinned",
+      );
+    }
+    // An outer corridor wider than ±6 (a very small alpha) widens the scale to 1.1 times it, so
+    // the corridor still shows; the same rule as zLimit.
+    const wide = { ...table, outerLevel: 6.4 };
+    const limit = Number(elements(evidenceChartSvg(wide))[0]?.attributes["data-z-limit"]);
+    expectClose(limit, 7.04, { rel: 1e-9 }, "z limit past a wide corridor");
+    expectClose(zLimit(6.4), limit, { rel: 1e-9 }, "zLimit(6.4) against the chart");
+    expect(zLimit(2.8)).toBe(PIN_LIMIT);
+  });
+
+  it("writes every text at 11 px or larger (chart and ribbon)", () => {
+    const table = lagTable(seriesF(), { maxLag: 24, season: 6 });
+    for (const svg of [evidenceChartSvg(table), jointRibbonSvg(table)]) {
+      const texts = elements(svg).filter((e) => e.local === "text");
+      expect(texts.length).toBeGreaterThan(3);
+      for (const t of texts) {
+        expect(Number(t.attributes["font-size"]), `"${t.text}"`).toBeGreaterThanOrEqual(11);
+      }
+    }
   });
 });

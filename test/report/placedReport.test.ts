@@ -10,10 +10,10 @@ import {
 import { seriesF } from "./chartTree";
 
 describe("liveReportFormulas(table, source)", () => {
-  it("passes every setting explicitly, leaving an unset season empty", () => {
+  it("passes every setting explicitly, an unset season as 0 (none), never an empty middle argument", () => {
     const reference = "'Q3 errors'!$B$1:$B$71";
     expect(liveReportFormulas(lagTable(seriesF(), {}), { reference })).toEqual({
-      noiseCheck: "=ECHOLOT.SERIESNOISECHECK('Q3 errors'!$B$1:$B$71,10,,0,0.05)",
+      noiseCheck: "=ECHOLOT.SERIESNOISECHECK('Q3 errors'!$B$1:$B$71,10,0,0,0.05)",
       lagTable: "=ECHOLOT.SERIESLAGTABLE('Q3 errors'!$B$1:$B$71,10,0.05,\"noise\")",
       portmanteau: "=ECHOLOT.SERIESPORTMANTEAU('Q3 errors'!$B$1:$B$71,10,0,\"ljung-box\")",
     });
@@ -30,6 +30,8 @@ describe("liveReportFormulas(table, source)", () => {
       lagTable: "=ECHOLOT.SERIESLAGTABLE('Q3 errors'!$B$1:$B$71,14,0.01,\"robust\",7)",
       portmanteau: "=ECHOLOT.SERIESPORTMANTEAU('Q3 errors'!$B$1:$B$71,14,2,\"robust\")",
     });
+    for (const formula of Object.values(liveReportFormulas(lagTable(seriesF(), {}), { reference })))
+      expect(formula, formula).not.toMatch(/,,|,\)/);
   });
 });
 

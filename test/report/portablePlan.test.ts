@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { lagTable, seriesFromValues, type LagOptions } from "../../src/core";
 import {
   chartPartXml,
-  EXACT_REFERENCE_BELOW,
+  PERMUTATION_NOTE,
   fileFormula,
   functionsCalled,
   NATIVE_FUNCTIONS,
@@ -81,7 +81,10 @@ describe("portablePlan(table, series, source, options)", () => {
     for (const c of cells) if (c.figure !== undefined) expect(p.figures.has(c.figure)).toBe(true);
     expect(p.figures.get("Q")).toBe(table.joint.q);
     expect(p.figures.get("p")).toBe(table.joint.p);
-    expect(p.figures.get("verdict")).toBe(table.verdict.word);
+    expect(p.figures.get("addInVerdict")).toBe(table.verdict.word);
+    // Series F (Box, Jenkins & Reinsel): r1 = -0.39, far beyond any corridor, so the sheet's rule
+    // and the add-in both read structure.
+    expect(p.figures.get("verdict")).toBe("structure");
     expect(p.figures.get("r.1")).toBe(table.rows[0]?.correlation);
     expect(p.figures.get("pairs.10")).toBe(60);
     const values = cells.flatMap((c) => ("value" in c.content ? [c.content.value] : []));
@@ -97,8 +100,12 @@ describe("portablePlan(table, series, source, options)", () => {
     expect(all.some((t) => t.includes("with or without the Echolot add-in"))).toBe(true);
     expect(all).toContain(SCREENING_CAUTION);
     expect(all).toContain("Placed on 2026-12-02 by Echolot.");
-    const exact = formulas(plan()).find((f) => f.includes("exact small-sample reference"));
-    expect(exact).toContain(`<${EXACT_REFERENCE_BELOW},`);
+    // The line beside the verdict: the add-in permutes series with n·K ≤ 250,000 and no fitted
+    // parameters (src/core/verdictReference.ts), so its reading may differ there.
+    const exact = formulas(plan()).find((f) => f.includes("exact permutation reference"));
+    expect(exact).toContain("AND($B$18=0,$B$11*$B$15<=250000)");
+    expect(PERMUTATION_NOTE).toContain("n·K ≤ 250,000");
+    expect(PERMUTATION_NOTE).toContain("may differ");
   });
 
   it("refuses the squares' test, which needs a second series", () => {
