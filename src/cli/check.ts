@@ -11,6 +11,7 @@ import { sideChecks, sideChecksText } from "../report/sideChecksText";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
+import { releaseBetweenSteps } from "./memory";
 import { lagTableJson, sideChecksJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
@@ -33,8 +34,10 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
     readingFrom(file, values),
     textOption(values, "column"),
   );
+  const release = () => releaseBetweenSteps(series.count);
+  release();
   const result = lagTable(series, options);
-  const side = sideChecks(series, result);
+  const side = sideChecks(series, result, release);
   return values.json === true
     ? toJsonText({ source, ...lagTableJson(result), ...sideChecksJson(side) })
     : `read: ${source}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;

@@ -77,6 +77,11 @@ async function readPart(file: string, into: SeriesResult[]): Promise<void> {
 
 export async function runFdr({ files, values }: ParsedCommand): Promise<string> {
   const format = formatOption(values, ["text", "json", "jsonl"]);
+  if (files.length === 0 && process.stdin.isTTY === true) {
+    throw new UsageError(
+      "fdr needs the parts: echolot fdr PART.jsonl … (or - to read them from standard input)",
+    );
+  }
   const parts = files.length === 0 ? ["-"] : files;
   if (parts.filter((f) => f === "-").length > 1)
     throw new UsageError("standard input (-) can be read once");

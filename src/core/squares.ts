@@ -8,11 +8,11 @@ import { centre } from "./centre";
 import { invalid, seriesName } from "./errors";
 import type { Series } from "./types";
 
+/** The squares are written over the deviations (a fresh array of centre's), so one array serves. */
 function squaredDeviationSeries(series: Series): Series {
-  const { deviations } = centre(series);
-  const values = new Float64Array(deviations.length);
+  const { deviations: values } = centre(series);
   for (let t = 0; t < values.length; t++) {
-    const d = deviations[t] as number;
+    const d = values[t] as number;
     values[t] = series.present[t] === 1 ? d * d : NaN;
   }
   return { ...series, values };

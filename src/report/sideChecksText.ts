@@ -26,16 +26,25 @@ export interface SideChecks {
   readonly normality: NormalityCheck | string;
 }
 
-/** The four side checks of a series, at the lag table's alpha and (for volatility) its K. */
-export function sideChecks(series: Series, table: LagTable): SideChecks {
+/**
+ * The four side checks of a series, at the lag table's alpha and (for volatility) its K, one
+ * after the other; `beforeEach` runs before each (the CLI releases a long series' garbage there).
+ */
+export function sideChecks(
+  series: Series,
+  table: LagTable,
+  beforeEach: () => void = () => undefined,
+): SideChecks {
+  const step = <T>(compute: () => T): T | string => {
+    beforeEach();
+    return resultOrReason(compute);
+  };
   return {
     alpha: table.alpha,
-    volatility: resultOrReason(() =>
-      volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha }),
-    ),
-    bias: resultOrReason(() => biasCheck(series, { alpha: table.alpha })),
-    runs: resultOrReason(() => runsCheck(series)),
-    normality: resultOrReason(() => normalityCheck(series)),
+    volatility: step(() => volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha })),
+    bias: step(() => biasCheck(series, { alpha: table.alpha })),
+    runs: step(() => runsCheck(series)),
+    normality: step(() => normalityCheck(series)),
   };
 }
 
