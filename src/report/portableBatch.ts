@@ -108,7 +108,7 @@ export function portableBatchPlan(
       row,
       column: 6,
       content: {
-        formula: `=IF(${addInPermutes(at.n, at.maxLag, at.fittedParams)},${textLiteral("n·K ≤ 250,000: the add-in's permutation reading may differ")},"")`,
+        formula: `=IF(${addInPermutes(at.n, at.maxLag, at.fittedParams, at.alpha)},${textLiteral("n·K ≤ 250,000: the add-in's permutation reading may differ")},"")`,
       },
       style: "note",
     });

@@ -236,7 +236,7 @@ export function portableBlock(
     ROW.exact,
     1,
     {
-      formula: `=IF(${addInPermutes(n, fig("maxLag"), fig("fittedParams"))},${textLiteral(PERMUTATION_NOTE)},${textLiteral("For a series this long (n·K > 250,000) or with fitted parameters the add-in too reads the joint p from χ².")})`,
+      formula: `=IF(${addInPermutes(n, fig("maxLag"), fig("fittedParams"), alpha)},${textLiteral(PERMUTATION_NOTE)},${textLiteral("For a series this long (n·K > 250,000), with fitted parameters or at α below 0.001 the add-in too reads the joint p from χ².")})`,
     },
     { style: "note" },
   );

@@ -2,20 +2,21 @@
  * Where everything of a portable report block sits (offsets from its top-left cell), its labels
  * and its number formats, in one place for the plan, the batch's summary links and the tests.
  */
-import { PERMUTATION_WORK_LIMIT } from "../core";
+import { PERMUTATION_WORK_LIMIT, SMALLEST_PERMUTATION_ALPHA } from "../core";
 import { absoluteCell } from "./portableFormulas";
 
 /**
  * The sheet's test of whether the add-in judges this series by its permutation reference
- * (src/core/verdictReference.ts): no fitted parameters and n·K ≤ 250,000. Its levels and its
- * joint p then come from permutations of the data, which spreadsheet functions cannot draw.
+ * (src/core/verdictReference.ts `referenceKind`): no fitted parameters, n·K ≤ 250,000 and
+ * α ≥ 0.001. Its levels and its joint p then come from permutations of the data, which
+ * spreadsheet functions cannot draw.
  */
-export function addInPermutes(n: string, maxLag: string, fitted: string): string {
-  return `AND(${fitted}=0,${n}*${maxLag}<=${PERMUTATION_WORK_LIMIT})`;
+export function addInPermutes(n: string, maxLag: string, fitted: string, alpha: string): string {
+  return `AND(${fitted}=0,${n}*${maxLag}<=${PERMUTATION_WORK_LIMIT},${alpha}>=${SMALLEST_PERMUTATION_ALPHA})`;
 }
 
 /** What the line beside a permuted verdict says. */
-export const PERMUTATION_NOTE = `The add-in uses an exact permutation reference for series of ordinary length (n·K ≤ ${PERMUTATION_WORK_LIMIT.toLocaleString("en")}, no fitted parameters), so its reading may differ from this portable one, which reads the joint p from χ² at the levels written here.`;
+export const PERMUTATION_NOTE = `The add-in uses an exact permutation reference for series of ordinary length (n·K ≤ ${PERMUTATION_WORK_LIMIT.toLocaleString("en")}, no fitted parameters, α ≥ ${SMALLEST_PERMUTATION_ALPHA}), so its reading may differ from this portable one, which reads the joint p from χ² at the levels written here.`;
 
 /** z beyond this is drawn at the chart's edge (the pane pins at the same place). */
 export const PIN = 6;
@@ -185,6 +186,7 @@ export interface PortableBlockCells {
   readonly exact: string;
   readonly maxLag: string;
   readonly fittedParams: string;
+  readonly alpha: string;
 }
 
 /** The cells of a block placed at `origin` on `sheet`, sheet-qualified. */
@@ -203,5 +205,6 @@ export function portableBlockCells(
     exact: absoluteCell(origin.row + ROW.exact, origin.column + 1, sheet),
     maxLag: at("maxLag"),
     fittedParams: at("fittedParams"),
+    alpha: at("alpha"),
   };
 }

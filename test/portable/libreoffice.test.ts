@@ -401,7 +401,8 @@ function demoVerdicts(name: string, plan: PortablePlan): HeldVerdict[] {
         key: prefix,
         n,
         // The demo's reports have no fitted parameters.
-        permuted: referenceKind(n, K, 0) === "permutation",
+        permuted:
+          referenceKind(n, K, 0, plan.figures.get(`${prefix}alpha`) as number) === "permutation",
         addIn: plan.figures.get(`${prefix}addInVerdict`) as string,
         sheet: sheet.name,
         row: cell.row,

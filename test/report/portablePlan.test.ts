@@ -100,10 +100,10 @@ describe("portablePlan(table, series, source, options)", () => {
     expect(all.some((t) => t.includes("with or without the Echolot add-in"))).toBe(true);
     expect(all).toContain(SCREENING_CAUTION);
     expect(all).toContain("Placed on 2026-12-02 by Echolot.");
-    // The line beside the verdict: the add-in permutes series with n·K ≤ 250,000 and no fitted
-    // parameters (src/core/verdictReference.ts), so its reading may differ there.
+    // The line beside the verdict: the add-in permutes series with n·K ≤ 250,000, no fitted
+    // parameters and α ≥ 0.001 (src/core/verdictReference.ts), so its reading may differ there.
     const exact = formulas(plan()).find((f) => f.includes("exact permutation reference"));
-    expect(exact).toContain("AND($B$18=0,$B$11*$B$15<=250000)");
+    expect(exact).toContain("AND($B$18=0,$B$11*$B$15<=250000,$B$16>=0.001)");
     expect(PERMUTATION_NOTE).toContain("n·K ≤ 250,000");
     expect(PERMUTATION_NOTE).toContain("may differ");
   });
