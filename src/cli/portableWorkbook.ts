@@ -181,9 +181,9 @@ function insertDrawing(sheetXml: string, id: string): string {
       '<worksheet xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships"',
     );
   }
-  const at = Math.min(
-    ...AFTER_DRAWING.map((tag) => xml.indexOf(tag)).filter((position) => position >= 0),
-  );
+  const at = AFTER_DRAWING.map((tag) => xml.indexOf(tag))
+    .filter((position) => position >= 0)
+    .reduce((first, position) => Math.min(first, position), Infinity);
   return `${xml.slice(0, at)}<drawing r:id="${id}"/>${xml.slice(at)}`;
 }
 
