@@ -16,6 +16,7 @@ import {
   crossCorrelation,
   forecastAudit,
   invalid,
+  lagFigures,
   lagTable,
   noiseCheck,
   normalityCheck,
@@ -30,6 +31,7 @@ import {
   type BatchRow,
   type BlockColumn,
   type LagOptions,
+  type LagFigures,
   type LagTable,
 } from "../src/core";
 import { optionalKeyword, optionalNumber, optionalSeason, readSeries } from "./arguments";
@@ -46,7 +48,7 @@ import { column, numberCell, row, type Cell } from "./shape";
  * @returns A column: autocovariance at lags 0, 1, …, maxLag.
  */
 export function seriesLagCov(series: any[][], maxLag?: number): any[][] {
-  return cellFunction(() => column(analyse(series, { maxLag }).autocovariance));
+  return cellFunction(() => column(figures(series, { maxLag }).autocovariance));
 }
 
 /**
@@ -58,7 +60,7 @@ export function seriesLagCov(series: any[][], maxLag?: number): any[][] {
  * @returns A column: autocorrelation at lags 1, 2, …, maxLag.
  */
 export function seriesLagCorr(series: any[][], maxLag?: number): any[][] {
-  return cellFunction(() => column(analyse(series, { maxLag }).rows.map((r) => r.correlation)));
+  return cellFunction(() => column(Array.from(figures(series, { maxLag }).correlation)));
 }
 
 /**
@@ -70,7 +72,7 @@ export function seriesLagCorr(series: any[][], maxLag?: number): any[][] {
  * @returns A column: partial autocorrelation at lags 1, 2, …, maxLag.
  */
 export function seriesPartialCorr(series: any[][], maxLag?: number): any[][] {
-  return cellFunction(() => column(analyse(series, { maxLag }).rows.map((r) => r.partial)));
+  return cellFunction(() => column(Array.from(figures(series, { maxLag }).partial)));
 }
 
 /**
@@ -89,9 +91,7 @@ export function seriesBand(
   alpha?: number,
   bandKind?: string,
 ): any[][] {
-  return cellFunction(() =>
-    column(analyse(series, { maxLag, alpha, bandKind }).rows.map((r) => r.band)),
-  );
+  return cellFunction(() => column(Array.from(figures(series, { maxLag, alpha, bandKind }).band)));
 }
 
 /**
@@ -197,6 +197,11 @@ function lagOptions(args: CellArguments): LagOptions {
     fittedParams: optionalNumber("fittedParams", args.fittedParams),
     bandKind: parseBandKind(optionalKeyword(args.bandKind)),
   };
+}
+
+/** Reads the series and arguments and computes the per-lag figures (no verdict). */
+function figures(series: unknown, args: CellArguments): LagFigures {
+  return lagFigures(readSeries(series), lagOptions(args));
 }
 
 /** Reads the series and arguments and runs the core's lag analysis. */

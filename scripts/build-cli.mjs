@@ -14,6 +14,8 @@ await build({
   ...common,
   entryPoints: ["src/cli/main.ts"],
   outfile: "build/echolot.cjs",
+  // `workbook` loads these from node_modules when it runs; the other commands never need them.
+  external: ["exceljs", "jszip"],
   banner: { js: "#!/usr/bin/env node" },
 });
 await build({

@@ -1,6 +1,10 @@
 /**
  * The demo workbook: the two invented scenarios of demo/ as sheets, each with live ECHOLOT
- * formulas beside its data, so someone with the add-in opens it and sees diagnostics at once.
+ * formulas beside its data, so someone with the add-in opens it and sees diagnostics at once —
+ * and, beside those, portable reports written in the spreadsheet's own functions
+ * (src/report/portablePlan.ts), so a reader without the add-in sees live figures too: a portable
+ * batch of the 24 blends (season 13) and a portable report with its chart of the fund's residuals
+ * (20 lags), each linked into the scenario's sheet next to the add-in's verdicts.
  *
  * The data cells are the CSV cells unchanged (numbers as numbers, dates as the text they are).
  * Each formula is written as an array formula over the exact size of what it returns — the file
@@ -20,8 +24,33 @@ import {
   seriesPortmanteau,
   seriesVolCheck,
 } from "../functions/functions";
-import { cellReader, csvParseOptions, detectDialect } from "../src/core";
-import { columnLetters, echolotFormula, SCREENING_CAUTION } from "../src/report";
+import {
+  cellReader,
+  csvParseOptions,
+  detectDialect,
+  lagTable,
+  seriesFromValues,
+  type LagOptions,
+  type LagTable,
+  type Series,
+} from "../src/core";
+import {
+  batchVerdictCell,
+  columnLetters,
+  echolotFormula,
+  portableBatchPlan,
+  portableBlockCells,
+  portablePlan,
+  SCREENING_CAUTION,
+  type PortableBatchItem,
+  type PortablePlan,
+  type PortableSource,
+} from "../src/report";
+import {
+  addPortableSheets,
+  portableWorkbookBytes,
+  type PlacedChart,
+} from "../src/cli/portableWorkbook";
 
 type Cell = string | number;
 type Grid = Cell[][];
@@ -208,12 +237,13 @@ const ABOUT = [
   "Larkvale residuals: 750 days of return-model residuals of an imagined fund, with volatility clustering and no linear dependence: compare the plain and the robust reading.",
   "",
   "The formulas need the Echolot add-in. The figures shown were computed by Echolot when this file was built; with the add-in loaded they recompute whenever the data change. Without it a spreadsheet shows #NAME? once it recalculates.",
+  "The portable sheets (Ternpoint portable, Larkvale portable) hold the same evidence in the spreadsheet's own functions: they recompute for everyone, with or without the add-in, and their verdicts are linked beside the add-in's.",
   "Select any column of errors and open the Echolot pane for the evidence chart and the explanation.",
   "",
   SCREENING_CAUTION,
 ];
 
-/** Builds the workbook in memory. */
+/** Builds the workbook in memory, without the portable sheets (see `buildDemoBook`). */
 export function buildDemoWorkbook(directory: string): ExcelJS.Workbook {
   const workbook = new ExcelJS.Workbook();
   workbook.creator = "Echolot";
@@ -258,4 +288,131 @@ export function buildDemoWorkbook(directory: string): ExcelJS.Workbook {
     }
   }
   return workbook;
+}
+
+export const TERNPOINT_PORTABLE = "Ternpoint portable";
+export const TERNPOINT_WORK = "Ternpoint portable work";
+export const LARKVALE_PORTABLE = "Larkvale portable";
+
+/** Data rows below each scenario's last row that its portable reports include (room to grow). */
+const ROOM = 100;
+
+/** The data column `column` of a scenario as a series, as the cell functions read it. */
+function scenarioSeries(data: Grid, column: number) {
+  return seriesFromValues(data.map((row) => row[column] ?? null).map((v) => (v === "" ? null : v)));
+}
+
+export interface DemoPortable {
+  readonly name: string;
+  readonly plan: PortablePlan;
+  /** Lag options each report was computed with (the same K is written into the sheet). */
+  readonly options: LagOptions;
+}
+
+/**
+ * How a series' lag table is made: Echolot's `lagTable`, or (in a test that changes the data in
+ * the written workbook) one that keeps the levels the sheets were written with. `where` is "fund"
+ * or "blend C" for data column C.
+ */
+export type DemoTableOf = (series: Series, options: LagOptions, where: string) => LagTable;
+
+/**
+ * The demo's portable plans: the blends' batch and the fund's report. `blendLags` fixes the
+ * blends' K (a report keeps the K it was written with when its data grow); by default each
+ * blend's K is the add-in's default for its length and season.
+ */
+export function demoPortablePlans(
+  directory: string,
+  placedOn: string,
+  blendLags: number | null = null,
+  tableOf: DemoTableOf = lagTable,
+): DemoPortable[] {
+  const [ternpoint, larkvale] = demoLayouts(directory);
+  if (ternpoint === undefined || larkvale === undefined) throw new Error("demo layouts missing");
+  const blendOptions: LagOptions = { season: TERNPOINT_SEASON, maxLag: blendLags };
+  const tdata = ternpoint.sheet.data;
+  const items: PortableBatchItem[] = [];
+  for (let c = 1; c < (tdata[0]?.length ?? 1); c++) {
+    const series = scenarioSeries(tdata, c);
+    const source: PortableSource = {
+      sheet: ternpoint.sheet.name,
+      column: c,
+      firstRow: 1,
+      rows: tdata.length - 1 + ROOM,
+    };
+    items.push({
+      label: String(tdata[0]?.[c] ?? `blend ${c}`),
+      source,
+      analysis: { table: tableOf(series, blendOptions, `blend ${c}`), series },
+    });
+  }
+  const ldata = larkvale.sheet.data;
+  const fundOptions: LagOptions = { maxLag: LARKVALE_LAGS };
+  const fund = scenarioSeries(ldata, 1);
+  // The fund's report first: its sheet, with the chart, is the one a reader opens first.
+  return [
+    {
+      name: "larkvale",
+      plan: portablePlan(
+        tableOf(fund, fundOptions, "fund"),
+        fund,
+        { sheet: larkvale.sheet.name, column: 1, firstRow: 1, rows: ldata.length - 1 + ROOM },
+        { sheetName: LARKVALE_PORTABLE, placedOn, roomToGrow: true },
+      ),
+      options: fundOptions,
+    },
+    {
+      name: "ternpoint",
+      plan: portableBatchPlan(items, {
+        summarySheet: TERNPOINT_PORTABLE,
+        workSheet: TERNPOINT_WORK,
+        placedOn,
+        roomToGrow: true,
+      }),
+      options: blendOptions,
+    },
+  ];
+}
+
+export interface DemoBook {
+  readonly workbook: ExcelJS.Workbook;
+  readonly charts: readonly PlacedChart[];
+  readonly portable: readonly DemoPortable[];
+}
+
+/**
+ * The whole demo workbook: the scenarios with live ECHOLOT formulas, the portable sheets, and a
+ * link to each portable verdict beside the add-in's verdicts.
+ */
+export function buildDemoBook(directory: string, placedOn: string): DemoBook {
+  const workbook = buildDemoWorkbook(directory);
+  const portable = demoPortablePlans(directory, placedOn);
+  const charts = portable.flatMap(({ plan }) => addPortableSheets(workbook, plan));
+  const [ternpoint, larkvale] = demoLayouts(directory);
+  const tsheet = workbook.getWorksheet(ternpoint?.sheet.name ?? "");
+  const lsheet = workbook.getWorksheet(larkvale?.sheet.name ?? "");
+  if (tsheet === undefined || lsheet === undefined || ternpoint === undefined) {
+    throw new Error("demo sheets missing");
+  }
+  // Beside the add-in's per-blend columns: the portable verdict, live for every reader.
+  const blends = (ternpoint.sheet.data[0]?.length ?? 1) - 1;
+  const linkColumn = blends + 2 + 7;
+  tsheet.getCell(3, linkColumn + 1).value = "verdict (portable, no add-in needed)";
+  for (let b = 0; b < blends; b++) {
+    tsheet.getCell(4 + b, linkColumn + 1).value = {
+      formula: batchVerdictCell(TERNPOINT_PORTABLE, b),
+    } as ExcelJS.CellFormulaValue;
+  }
+  const fund = portableBlockCells(LARKVALE_PORTABLE, { row: 0, column: 0 });
+  lsheet.getCell(2, 4).value = "Portable verdict (no add-in needed)";
+  lsheet.getCell(2, 5).value = { formula: fund.verdict } as ExcelJS.CellFormulaValue;
+  lsheet.getCell(2, 6).value =
+    "The sheet Larkvale portable holds the same evidence in the spreadsheet's own functions, with its chart.";
+  return { workbook, charts, portable };
+}
+
+/** The demo workbook as xlsx bytes, charts included. */
+export async function demoWorkbookBytes(directory: string, placedOn: string): Promise<Buffer> {
+  const { workbook, charts } = buildDemoBook(directory, placedOn);
+  return portableWorkbookBytes(workbook, charts);
 }

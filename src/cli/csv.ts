@@ -39,6 +39,8 @@ export interface Reading {
   readonly dialect: DialectChoice;
   readonly percent: boolean;
   readonly gapWords: readonly string[];
+  /** Also hands every record, as read, to this sink (the workbook keeps the file's cells). */
+  readonly tap?: (dialect: Dialect) => RecordSink;
 }
 
 /** How the reader's options are spelled in hints on the command line. */
@@ -138,7 +140,15 @@ export async function streamRecords(
   const decoder = new TextDecoder(encoding);
   const sample = new TextDecoder(encoding).decode(start, { stream: !ended });
   const dialect = detectDialect(sample, ended, reading.dialect);
-  const sink = open(dialect, expectedRows(reading, start, ended));
+  const opened = open(dialect, expectedRows(reading, start, ended));
+  const tap = reading.tap?.(dialect);
+  const sink: RecordSink =
+    tap === undefined
+      ? opened
+      : (record, line) => {
+          tap(record, line);
+          opened(record, line);
+        };
 
   // UTF-8 goes to the parser as it is (the parser drops its byte-order mark); UTF-16 is decoded
   // and handed over as UTF-8.

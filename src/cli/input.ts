@@ -68,6 +68,8 @@ export async function readOneSeries(
 
 export interface ManySeries {
   readonly series: readonly Series[];
+  /** The column of each series, in the same order (wide format only). */
+  readonly columns?: readonly TableColumn[];
   /** Columns or ids not analysed, each with why. */
   readonly notAnalysed: readonly { readonly name: string; readonly reason: string }[];
   /** One line on what was read. */
@@ -124,6 +126,7 @@ export async function readManySeries(reading: Reading, values: OptionValues): Pr
   const table = await readTable(reading);
   const { series: columns, leftOut } = seriesColumnsOf(table);
   const series: Series[] = [];
+  const kept: TableColumn[] = [];
   const notAnalysed: { name: string; reason: string }[] = leftOut.map((l) => ({
     name: columnPlace(table, l.column),
     reason: l.reason,
@@ -131,6 +134,7 @@ export async function readManySeries(reading: Reading, values: OptionValues): Pr
   for (const column of columns) {
     try {
       series.push(columnSeries(table, column));
+      kept.push(column);
     } catch (error) {
       if ((error as { name?: string }).name !== "EcholotError") throw error;
       notAnalysed.push({ name: columnPlace(table, column), reason: (error as Error).message });
@@ -138,6 +142,7 @@ export async function readManySeries(reading: Reading, values: OptionValues): Pr
   }
   return {
     series,
+    columns: kept,
     notAnalysed,
     source: `${reading.origin}: ${table.columns.length} column${table.columns.length === 1 ? "" : "s"}, ${series.length} analysed`,
   };

@@ -10,6 +10,7 @@ import { CHECK_OPTIONS, runCheck } from "./check";
 import { runDemo } from "./demo";
 import { FDR_OPTIONS, runFdr } from "./fdr";
 import { REPORT_OPTIONS, runReport } from "./report";
+import { runWorkbook, WORKBOOK_OPTIONS } from "./workbook";
 import { UsageError } from "./errors";
 import { parseCommand, type ParsedCommand } from "./options";
 import { writeStdout } from "./output";
@@ -24,6 +25,7 @@ const USAGES: Readonly<Record<string, string>> = {
   audit: `echolot audit FILE.csv|- --horizon H [--season M] [--alpha A] [--lags K] ${LONG} ${READ} [--json]`,
   batch: `echolot batch FILE.csv|- ${LAGS} ${LONG} ${READ} [--json | --format text|json|jsonl]`,
   report: `echolot report FILE.csv|- [--column NAME|N] ${LAGS} ${READ} --out report.html [--force]`,
+  workbook: `echolot workbook FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--batch] --out book.xlsx [--force]`,
   fdr: "echolot fdr [PART.jsonl … | -] [--json | --format text|json|jsonl]",
   demo: "echolot demo",
 };
@@ -43,6 +45,7 @@ const COMMANDS: Readonly<Record<string, Command>> = {
   audit: { options: AUDIT_OPTIONS, maxFiles: 1, run: runAudit },
   batch: { options: BATCH_OPTIONS, maxFiles: 1, run: runBatch },
   report: { options: REPORT_OPTIONS, maxFiles: 1, run: runReport },
+  workbook: { options: WORKBOOK_OPTIONS, maxFiles: 1, run: runWorkbook },
   fdr: { options: FDR_OPTIONS, maxFiles: Infinity, run: runFdr },
   demo: { options: [], maxFiles: 0, run: () => runDemo() },
 };

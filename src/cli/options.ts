@@ -31,6 +31,7 @@ const OPTIONS: Readonly<Record<string, Spec>> = {
   format: { type: "string" },
   out: { type: "string" },
   force: { type: "boolean" },
+  batch: { type: "boolean" },
   delimiter: { type: "string" },
   decimal: { type: "string" },
   na: { type: "string" },

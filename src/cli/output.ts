@@ -48,12 +48,12 @@ export function writeFailure(target: string, error: unknown): string {
 }
 
 /**
- * Writes `text` to `out` by way of a temporary file and a rename. `inputs` are the files the
- * command read: `out` may never be one of them.
+ * Writes `text` (UTF-8) or raw bytes (an xlsx) to `out` by way of a temporary file and a rename.
+ * `inputs` are the files the command read: `out` may never be one of them.
  */
 export function writeOutFile(
   out: string,
-  text: string,
+  text: string | Uint8Array,
   force: boolean,
   inputs: readonly string[],
 ): void {
@@ -76,7 +76,7 @@ export function writeOutFile(
   let fd: number | undefined;
   try {
     fd = openSync(temporary, "wx");
-    const bytes = Buffer.from(text, "utf8");
+    const bytes = typeof text === "string" ? Buffer.from(text, "utf8") : text;
     let written = 0;
     while (written < bytes.length) written += writeSync(fd, bytes, written);
     fsyncSync(fd);

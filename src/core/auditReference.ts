@@ -27,7 +27,7 @@ import { horizonT, rectangularVariance } from "./horizonBias";
 import { laterLagsBuffers, laterLagsTest } from "./laterLags";
 import { lagStatistics, lagStatisticsWork } from "./lagStatistics";
 import { fitMovingAverage, type MovingAverageModel } from "./movingAverageFit";
-import { baseDrawCount } from "./verdictReference";
+import { baseDrawCount, SMALLEST_PERMUTATION_ALPHA } from "./verdictReference";
 import { SeedHash } from "./seededDraws";
 
 export interface AuditReferenceInput {
@@ -176,7 +176,9 @@ function levelsUnder(
     return { mean, c0 };
   };
 
-  const B = baseDrawCount(alpha);
+  // Below alpha 0.001 the draws stop at 24,999: too few to place a level that small, so nothing
+  // is flagged there (the level is then held trivially).
+  const B = baseDrawCount(Math.max(alpha, SMALLEST_PERMUTATION_ALPHA));
   const tAbs = new Float64Array(B + 1);
   const qs = new Float64Array(B + 1);
   const largest = new Float64Array(B + 1);

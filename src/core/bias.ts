@@ -58,27 +58,38 @@ function resolveHacLags(hacLags: number | null | undefined, n: number): number {
   return hacLags;
 }
 
-export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck {
-  requireValues(series, 3, "the bias check");
-  const n = series.count;
-  const alpha = resolveAlpha(options.alpha);
-  const L = resolveHacLags(options.hacLags, n);
-  let gamma: Float64Array;
-  let mean: number;
-  let scale: number;
+/**
+ * The mean, and γ̂_0..γ̂_L in the deviations' own scale (centre.ts), so that data near 1e155 or
+ * 1e-200 neither overflow nor underflow on the way to a t statistic; absolute figures are
+ * multiplied back by `scale` (or its square). A constant series is refused: its mean has no
+ * sampling error. Shared by the bias check and the h-step bias of the forecast audit.
+ */
+export function meanMoments(
+  series: Series,
+  lags: number,
+): { gamma: Float64Array; mean: number; scale: number } {
   try {
-    const ac = autocorrelation(series, L);
-    // In the deviations' own scale (centre.ts), so that data near 1e155 or 1e-200 neither
-    // overflow nor underflow on the way to t; absolute figures are multiplied back at the end.
-    gamma = ac.correlation.map((r) => (r * ac.sumSquares) / n);
-    mean = ac.mean;
-    scale = ac.scale;
+    const ac = autocorrelation(series, Math.min(lags, series.values.length - 1));
+    const n = ac.n;
+    return {
+      gamma: ac.correlation.map((r) => (r * ac.sumSquares) / n),
+      mean: ac.mean,
+      scale: ac.scale,
+    };
   } catch (error) {
     if (!isEcholotError(error)) throw error;
     invalid(
       `${seriesName(series.label)} is constant: its mean has no sampling error to test against`,
     );
   }
+}
+
+export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck {
+  requireValues(series, 3, "the bias check");
+  const n = series.count;
+  const alpha = resolveAlpha(options.alpha);
+  const L = resolveHacLags(options.hacLags, n);
+  const { gamma, mean, scale } = meanMoments(series, L);
   let lrv = gamma[0] as number;
   for (let j = 1; j <= L; j++) {
     const g = gamma[j] as number;

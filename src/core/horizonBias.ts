@@ -9,9 +9,8 @@
  * The rectangular V can be negative in a sample; then the plain variance γ̂_0 is used instead, and
  * `fallback` says so. With gaps each γ̂_j sums over the pairs present. Cost O(n·h).
  */
-import { autocorrelation } from "./autocovariance";
+import { meanMoments } from "./bias";
 import { studentTwoSided } from "./distributions";
-import { invalid, isEcholotError, seriesName } from "./errors";
 import type { Series } from "./types";
 
 export interface HorizonBias {
@@ -59,21 +58,7 @@ export function rectangularVariance(
 
 export function horizonBias(series: Series, horizon: number): HorizonBias {
   const n = series.count;
-  let gamma: Float64Array;
-  let mean: number;
-  let scale: number;
-  try {
-    const ac = autocorrelation(series, Math.min(horizon - 1, series.values.length - 1));
-    // In the deviations' own scale (centre.ts), as the bias check does.
-    gamma = ac.correlation.map((r) => (r * ac.sumSquares) / n);
-    mean = ac.mean;
-    scale = ac.scale;
-  } catch (error) {
-    if (!isEcholotError(error)) throw error;
-    invalid(
-      `${seriesName(series.label)} is constant: its mean has no sampling error to test against`,
-    );
-  }
+  const { gamma, mean, scale } = meanMoments(series, horizon - 1);
   const { value, fallback } = rectangularVariance(gamma, horizon);
   const t = mean / scale / Math.sqrt(value / n);
   const se = Math.sqrt(value / n) * scale;

@@ -300,3 +300,33 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
     verdict,
   };
 }
+
+/** The per-lag figures alone, for the cell functions that show only them. */
+export interface LagFigures {
+  /** γ̂_k for k = 0..K. */
+  readonly autocovariance: Float64Array;
+  /** r_k for k = 1..K (index k−1). */
+  readonly correlation: Float64Array;
+  /** φ̂_kk for k = 1..K (index k−1). */
+  readonly partial: Float64Array;
+  /** Band half-width z_{1−α/2}·se_k for k = 1..K (index k−1). */
+  readonly band: Float64Array;
+}
+
+/**
+ * The lag table's per-lag figures without its verdict: the same functions on the same options
+ * (so the same numbers, bit for bit), without the verdict's reference draws. O(n·K + K²).
+ */
+export function lagFigures(series: Series, options: LagOptions = {}): LagFigures {
+  const resolved = resolveLagOptions(series, options);
+  const { maxLag: K, alpha, bandKind } = resolved;
+  const ac = autocorrelation(series, K);
+  const se = standardErrors(bandKind, ac, K);
+  const inner = innerCorridor(alpha);
+  return {
+    autocovariance: ac.autocovariance,
+    correlation: ac.correlation.slice(1),
+    partial: Float64Array.from(partialAutocorrelation(ac.correlation)),
+    band: se.map((s) => inner * s),
+  };
+}

@@ -115,9 +115,19 @@ export function baseDrawCount(alpha: number): number {
   return 500 * Math.max(1, Math.ceil(25 / (alpha * 500) - 1e-9)) - 1;
 }
 
+/** Below this alpha a permutation reference would need too many draws: the normal limit. */
+export const SMALLEST_PERMUTATION_ALPHA = 0.001;
+
 /** Which reference the verdict of a series with n values present uses. */
-export function referenceKind(n: number, maxLag: number, fittedParams: number): ReferenceKind {
-  return fittedParams === 0 && n * maxLag <= PERMUTATION_WORK_LIMIT
+export function referenceKind(
+  n: number,
+  maxLag: number,
+  fittedParams: number,
+  alpha: number,
+): ReferenceKind {
+  return fittedParams === 0 &&
+    n * maxLag <= PERMUTATION_WORK_LIMIT &&
+    alpha >= SMALLEST_PERMUTATION_ALPHA
     ? "permutation"
     : "normal-limit";
 }
@@ -343,9 +353,11 @@ function normalLimit(
       chances[summary.crossings] as number,
     );
   }
+  // With fewer than 25 draws beyond the level (alpha below 0.00125) the quantile is not worth
+  // drawing for: each rule then takes alpha/2 (Bonferroni), which holds alpha together.
   const allowed = Math.floor(alpha * (NORMAL_LIMIT_DRAWS + 1) + 1e-9);
-  const structureLevel = Math.min(alpha, kthSmallest(s, allowed));
-  const watchLevel = Math.min(alpha, kthSmallest(w, allowed));
+  const structureLevel = allowed >= 25 ? Math.min(alpha, kthSmallest(s, allowed)) : alpha / 2;
+  const watchLevel = allowed >= 25 ? Math.min(alpha, kthSmallest(w, allowed)) : alpha / 2;
   const limit = {
     structureLevel,
     criticalQ: chiSquareQuantileUpper(structureLevel, df),
@@ -390,7 +402,7 @@ export function verdictLevels(
   seedWords: readonly string[],
 ): VerdictLevels {
   const { spec, alpha, fittedParams, keyLags, innerLevel, q, df } = input;
-  if (referenceKind(spec.n, spec.maxLag, fittedParams) === "permutation") {
+  if (referenceKind(spec.n, spec.maxLag, fittedParams, alpha) === "permutation") {
     return permutationLevels(input, drawSeed(input, seedWords).stream());
   }
   const tested = testedLags(spec);

@@ -12,3 +12,8 @@ export * from "./htmlReport";
 export * from "./lagTableHeader";
 export * from "./placedReport";
 export * from "./seriesReport";
+export * from "./portableFormulas";
+export * from "./portableTypes";
+export * from "./portablePlan";
+export * from "./portableBatch";
+export * from "./portableChartXml";

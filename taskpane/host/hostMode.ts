@@ -16,6 +16,7 @@ import {
   type ApiSupport,
   type ExcelRun,
 } from "./excel";
+import { installPortableAction } from "./placePortable";
 import { placeReport } from "./placeReport";
 import type { ErrorCell, RangeRead } from "./readRange";
 import { HostSession } from "./session";
@@ -258,6 +259,7 @@ export async function startHost(
   };
   el.placeLive.addEventListener("click", () => void place("live"));
   el.placeSnapshot.addEventListener("click", () => void place("snapshot"));
+  installPortableAction(el, pane, run);
 
   await listenWhileVisible(session, env.addin, (error) => pane.showDataProblem(messageOf(error)));
 }

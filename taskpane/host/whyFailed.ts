@@ -114,7 +114,7 @@ export async function explainFailedCell(
     const said =
       typeof message === "string" && message !== "" ? message.replace(/\.$/, "") : "(no message)";
     const codeText = typeof code === "string" ? code : shown.code;
-    return `${intro} ECHOLOT.${call.id}, recomputed from the same arguments, gives ${codeText}: ${said.charAt(0).toUpperCase()}${said.slice(1)}.`;
+    return `${intro} ECHOLOT.${call.id}, recomputed from the same arguments, gives ${codeText}: ${said}.`;
   }
   const meaning = SHEET_ERRORS[shown.code] ?? "the error comes from the sheet, not the function";
   return `${intro} ECHOLOT.${call.id}, recomputed from the same arguments, gives a result, so ${meaning}.`;

@@ -4,7 +4,7 @@
  * own host glue runs end to end — reading the selection, pinning and following a range, placing
  * a live report and a snapshot — in Chromium. Runs (or skips) like pane.test.ts.
  */
-import { readFileSync } from "node:fs";
+import { mkdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { buildSync } from "esbuild";
 import type { BrowserContext, Page } from "playwright-core";
@@ -163,8 +163,10 @@ describe("the built pane in a workbook (simulated host)", () => {
     await expect
       .poll(() => page.textContent("#problem"))
       .toBe(
-        "Cell 'Forecast errors'!G2 shows #VALUE!. ECHOLOT.SERIESLAGCORR, recomputed from the same arguments, gives #VALUE!: MaxLag must be a whole number from 1 to 69 (the series has 70 values).",
+        "Cell 'Forecast errors'!G2 shows #VALUE!. ECHOLOT.SERIESLAGCORR, recomputed from the same arguments, gives #VALUE!: maxLag must be a whole number from 1 to 69 (the series has 70 values).",
       );
+    mkdirSync(join(ROOT, "test-output"), { recursive: true });
+    await page.screenshot({ path: join(ROOT, "test-output", "pane-why-failed.png") });
     await page.evaluate(() => window.echolotHost.select("Forecast errors", "A1:A71"));
     await expect.poll(() => page.textContent("#series-label")).toBe("yield");
   });

@@ -34,7 +34,8 @@ function staleness(dir: string, officeJs: OfficeJsSource): string | undefined {
   const map = join(dir, "taskpane.js.map");
   if (!existsSync(page) || !existsSync(bundle) || !existsSync(map))
     return `${dir} has no built pane`;
-  const local = readFileSync(page, "utf8").includes('src="office-js/office.js"');
+  // The minified page may leave the attribute unquoted: src=office-js/office.js.
+  const local = /src="?office-js\/office\.js/.test(readFileSync(page, "utf8"));
   if (local !== (officeJs === "local"))
     return `${dir} is not a build with the ${officeJs} office.js`;
   const built = Math.min(statSync(page).mtimeMs, statSync(bundle).mtimeMs);

@@ -11,40 +11,44 @@ import { seededRandom } from "../../src/sim/random";
 import { expectAtLeast, expectWithin } from "../helpers/expectClose";
 
 describe("forecastAudit on simulated forecast errors", () => {
-  it("forecastAudit(3-step errors of an optimal forecast, n 400) finds no structure beyond lag 2 in ≥ 90% of 200 runs, while the noise check alarms on them", () => {
-    // The 3-step error of the optimal forecast of an AR(1) with φ = 0.6 is
-    // a_t + 0.6 a_{t−1} + 0.36 a_{t−2}, an MA(2) (Box, Jenkins & Reinsel, §5.1: ψ_j = φ^j).
-    const random = seededRandom(20261204);
-    const runs = 200;
-    let noStructure = 0;
-    let clear = 0;
-    let plainAlarms = 0;
-    for (let run = 0; run < runs; run++) {
-      const errors = seriesFromNumbers(movingAverage(random, 400, [0.6, 0.36]));
-      const audit = forecastAudit(errors, { horizon: 3 });
-      if (audit.dependence.word !== "structure") noStructure++;
-      if (audit.dependence.word === "clear") clear++;
-      if (lagTable(errors).verdict.word === "structure") plainAlarms++;
-    }
-    // Bound from the issue (≥ 90%): "structure" is the alarm — the joint test of lags 3..12 or a
-    // lag beyond the all-lags corridor. The verdict's "watch" rules (lag h or more crossings than
-    // chance) add the same few percent as they do for the noise check on pure noise.
-    expectAtLeast(
-      noStructure / runs,
-      0.9,
-      `share of ${runs} MA(2) runs with no structure beyond lag 2`,
-    );
-    // The word "clear" itself: the noise check on pure white noise of the same length says
-    // "clear" in about 88% of runs (its watch rules included), so the audit cannot exceed that
-    // by much; measured here 87–88%. Bound: common practice (no source), 5 points below.
-    expectAtLeast(clear / runs, 0.83, `share of ${runs} MA(2) runs judged clear beyond lag 2`);
-    // The plain noise check counts the expected lags 1–2 against the forecast.
-    expectAtLeast(
-      plainAlarms / runs,
-      0.99,
-      `share of ${runs} MA(2) runs the noise check calls structure`,
-    );
-  });
+  it(
+    "forecastAudit(3-step errors of an optimal forecast, n 400) finds no structure beyond lag 2 in ≥ 90% of 200 runs, while the noise check alarms on them",
+    { timeout: 300_000 },
+    () => {
+      // The 3-step error of the optimal forecast of an AR(1) with φ = 0.6 is
+      // a_t + 0.6 a_{t−1} + 0.36 a_{t−2}, an MA(2) (Box, Jenkins & Reinsel, §5.1: ψ_j = φ^j).
+      const random = seededRandom(20261204);
+      const runs = 200;
+      let noStructure = 0;
+      let clear = 0;
+      let plainAlarms = 0;
+      for (let run = 0; run < runs; run++) {
+        const errors = seriesFromNumbers(movingAverage(random, 400, [0.6, 0.36]));
+        const audit = forecastAudit(errors, { horizon: 3 });
+        if (audit.dependence.word !== "structure") noStructure++;
+        if (audit.dependence.word === "clear") clear++;
+        if (lagTable(errors).verdict.word === "structure") plainAlarms++;
+      }
+      // Bound from the issue (≥ 90%): "structure" is the alarm — the joint test of lags 3..12 or a
+      // lag beyond the all-lags corridor. The verdict's "watch" rules (lag h or more crossings than
+      // chance) add the same few percent as they do for the noise check on pure noise.
+      expectAtLeast(
+        noStructure / runs,
+        0.9,
+        `share of ${runs} MA(2) runs with no structure beyond lag 2`,
+      );
+      // The word "clear" itself: the noise check on pure white noise of the same length says
+      // "clear" in about 88% of runs (its watch rules included), so the audit cannot exceed that
+      // by much; measured here 87–88%. Bound: common practice (no source), 5 points below.
+      expectAtLeast(clear / runs, 0.83, `share of ${runs} MA(2) runs judged clear beyond lag 2`);
+      // The plain noise check counts the expected lags 1–2 against the forecast.
+      expectAtLeast(
+        plainAlarms / runs,
+        0.99,
+        `share of ${runs} MA(2) runs the noise check calls structure`,
+      );
+    },
+  );
 });
 
 describe("volatilityCheck: Engle's LM test by simulation (n 1,000)", () => {

@@ -116,30 +116,35 @@ describe("SERIESFORECASTAUDIT(errors, horizon, season, alpha)", () => {
   it("spills the two-column audit table equal to the core's audit", () => {
     const result = call("SERIESFORECASTAUDIT", seriesFColumn, 3);
     const audit = forecastAudit(coreF, { horizon: 3 });
+    const drawn = audit.levels.jointP;
     expect(result.map((r) => r[0])).toEqual([
       "bias: mean error",
-      "bias: Newey–West se (3 lags)",
-      "bias: t",
-      "bias: p",
+      "bias: se (long-run variance, lags 0–2)",
+      "bias: corrected t",
+      "bias: p (t, 69 df)",
       "dependence: lags tested",
       "dependence: Q",
       "dependence: df",
-      "dependence: p",
+      `dependence: p (Monte Carlo, ${drawn.draws.toLocaleString("en-US")} draws)`,
       "verdict",
       "reason",
     ]);
     expect(result.map((r) => r[1])).toEqual([
       audit.bias.mean,
       audit.bias.se,
-      audit.bias.t,
+      audit.bias.tCorrected,
       audit.bias.p,
       "3–12",
       audit.dependenceTest.q,
       10,
-      audit.dependenceTest.p,
+      drawn.p,
       "structure",
       audit.verdict.reason,
     ]);
+    // Derived (METHODS.md, Harvey, Leybourne & Newbold 1997 with exact sums and 40-digit
+    // tails): Series F as 3-step errors, t* = 38.3151803494, p = 3.09141041114e−48.
+    expectClose(numberAt(result, 2, 1), 38.3151803494, { rel: 1e-9 }, "Series F h 3: t*");
+    expectClose(numberAt(result, 3, 1), 3.09141041114e-48, { rel: 1e-8 }, "Series F h 3: p");
   });
 
   it("defaults the horizon to 1 (every lag counted)", () => {
@@ -201,12 +206,13 @@ describe("SERIESCROSSCORR(x, y, maxLag)", () => {
 });
 
 describe("SERIESROLLCHECK(series, window, lags, step)", () => {
-  it("is aligned row for row with its input: label and leading gaps empty, then one p per window end", () => {
+  it("is aligned row for row with its input down to its last value: label and leading gaps empty, then one p per window end", () => {
     const cells = ["yield", "", "", ...seriesF, ""];
     const result = call("SERIESROLLCHECK", columnRange(cells), 30, 5, 2);
-    expect(result.length, "one output row per input row").toBe(cells.length);
+    // The trailing blank row gets no output row: the spill ends at the last value.
+    expect(result.length, "one output row per input row to the last value").toBe(cells.length - 1);
     const core = rollingCheck(coreF, { window: 30, lags: 5, step: 2 });
-    for (let r = 0; r < cells.length; r++) {
+    for (let r = 0; r < result.length; r++) {
       const position = r - 3;
       const expected = position >= 0 && position < 70 ? core.p[position] : NaN;
       const cell = result[r]?.[0];

@@ -497,7 +497,7 @@ export class FakeRange {
     return this.loaded.get(property);
   }
 
-  private snapshot(property: string, record = true): unknown {
+  private snapshot(property: string): unknown {
     const area = this.area;
     if (area === null) return undefined;
     switch (property) {
@@ -515,13 +515,11 @@ export class FakeRange {
       case "valueTypes":
       case "formulas": {
         const grid = this.sheet.grid(a1(area));
-        if (record) {
-          this.context.host.loads.push({
-            address: a1(area),
-            property,
-            cells: grid.values.length * (grid.values[0]?.length ?? 0),
-          });
-        }
+        this.context.host.loads.push({
+          address: a1(area),
+          property,
+          cells: grid.values.length * (grid.values[0]?.length ?? 0),
+        });
         if (property === "values") return grid.values.map((row) => row.map(shownValue));
         if (property === "valueTypes") return grid.values.map((row) => row.map(valueType));
         return grid.formulas.map((row, i) =>
@@ -533,6 +531,22 @@ export class FakeRange {
     }
   }
 
+  /** About the bytes the host would send for these properties of `area`, as JSON. */
+  private responseSize(area: Area, properties: readonly string[]): number {
+    let bytes = 0;
+    for (let r = area.r0; r <= area.r1; r++) {
+      for (let c = area.c0; c <= area.c1; c++) {
+        const cell = this.sheet.get(r, c);
+        for (const p of properties) {
+          const shown = p === "valueTypes" ? valueType(cell.value) : shownValue(cell.value);
+          const text = p === "formulas" && cell.formula !== "" ? cell.formula : shown;
+          bytes += (typeof text === "string" ? text.length + 2 : String(text).length) + 1;
+        }
+      }
+    }
+    return bytes;
+  }
+
   load(properties: string | string[]): this {
     const list =
       typeof properties === "string" ? properties.split(",").map((p) => p.trim()) : properties;
@@ -542,9 +556,7 @@ export class FakeRange {
     if (area !== null && cellData.length > 0) {
       // The response's size, as the host would serialise it, counts against its limits.
       this.context.responseCells += (area.r1 - area.r0 + 1) * (area.c1 - area.c0 + 1);
-      this.context.responseBytes += JSON.stringify(
-        cellData.map((p) => this.snapshot(p, false)),
-      ).length;
+      this.context.responseBytes += this.responseSize(area, cellData);
     }
     this.context.pending.push(() => {
       this.loaded.set("isNullObject", this.area === null);

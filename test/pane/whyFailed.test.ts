@@ -63,7 +63,7 @@ describe("explainFailedCell(run, address, formula, shown)", () => {
     host.sheet("Report").setFormula("B5", formula, errorValue("#VALUE!"));
     const why = await explain(host, "Report!B5", formula, "#VALUE!");
     expect(why).toBe(
-      "Cell Report!B5 shows #VALUE!. ECHOLOT.SERIESLAGTABLE, recomputed from the same arguments, gives #VALUE!: Row 13 of the range holds the error #DIV/0!; fix that cell or make it blank or #N/A (a gap).",
+      "Cell Report!B5 shows #VALUE!. ECHOLOT.SERIESLAGTABLE, recomputed from the same arguments, gives #VALUE!: row 13 of the range holds the error #DIV/0!; fix that cell or make it blank or #N/A (a gap).",
     );
   });
 
@@ -72,7 +72,7 @@ describe("explainFailedCell(run, address, formula, shown)", () => {
     const formula = "=ECHOLOT.SERIESLAGCORR(B:B,80)";
     const why = await explain(host, "Errors!D2", formula, "#VALUE!");
     expect(why).toContain(
-      "gives #VALUE!: MaxLag must be a whole number from 1 to 69 (the series has 70 values)",
+      "gives #VALUE!: maxLag must be a whole number from 1 to 69 (the series has 70 values)",
     );
     expect(host.loads.reduce((most, l) => Math.max(most, l.cells), 0)).toBeLessThanOrEqual(71);
   });

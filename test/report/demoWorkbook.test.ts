@@ -4,7 +4,13 @@ import { join } from "node:path";
 import ExcelJS from "exceljs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { lagTable, seriesFromValues } from "../../src/core";
-import { buildDemoWorkbook } from "../../scripts/demoWorkbook";
+import {
+  buildDemoBook,
+  buildDemoWorkbook,
+  LARKVALE_PORTABLE,
+  TERNPOINT_PORTABLE,
+  TERNPOINT_WORK,
+} from "../../scripts/demoWorkbook";
 import { ROOT } from "../cli/run";
 
 const DEMO = join(ROOT, "demo");
@@ -150,5 +156,32 @@ describe("the demo workbook (demo/echolot-demo.xlsx)", () => {
       expect(ternpoint.getCell(`AC${row}`).value).toBe(table.verdict.reason);
       expect(ternpoint.getCell(`AA${row}`).value).toBe(column[0]);
     }
+  });
+});
+
+describe("buildDemoBook(directory, placedOn): the portable reports beside the live formulas", () => {
+  it("adds the fund's portable report with its chart and the blends' portable batch, linked beside the add-in's verdicts", () => {
+    const { workbook, charts, portable } = buildDemoBook(DEMO, "2026-12-02");
+    expect(workbook.worksheets.map((s) => s.name)).toEqual([
+      "About",
+      "Ternpoint errors",
+      "Larkvale residuals",
+      LARKVALE_PORTABLE,
+      TERNPOINT_PORTABLE,
+      TERNPOINT_WORK,
+    ]);
+    expect(charts.map((c) => c.sheet)).toEqual([LARKVALE_PORTABLE]);
+    expect(portable.map((p) => p.name)).toEqual(["larkvale", "ternpoint"]);
+    const ternpoint = workbook.getWorksheet("Ternpoint errors");
+    const larkvale = workbook.getWorksheet("Larkvale residuals");
+    // Beside the live per-blend columns (AB..AG): the portable verdict of each blend.
+    expect(ternpoint?.getCell("AH3").value).toBe("verdict (portable, no add-in needed)");
+    expect(formulaAt(ternpoint as ExcelJS.Worksheet, "AH4").formula).toBe(
+      "'Ternpoint portable'!$F$7",
+    );
+    expect(formulaAt(ternpoint as ExcelJS.Worksheet, "AH27").formula).toBe(
+      "'Ternpoint portable'!$F$30",
+    );
+    expect(formulaAt(larkvale as ExcelJS.Worksheet, "E2").formula).toBe("'Larkvale portable'!$B$7");
   });
 });
