@@ -22,12 +22,24 @@ import {
   summarise,
   type VerdictLevels,
 } from "./verdictReference";
-import { normalTwoSided, studentTwoSided } from "./distributions";
+import {
+  chiSquareUpperTail,
+  normalQuantile,
+  normalTwoSided,
+  studentTwoSided,
+} from "./distributions";
 import { horizonT, rectangularVariance } from "./horizonBias";
 import { laterLagsBuffers, laterLagsTest } from "./laterLags";
 import { lagStatistics, lagStatisticsWork } from "./lagStatistics";
 import { fitMovingAverage, type MovingAverageModel } from "./movingAverageFit";
-import { baseDrawCount, SMALLEST_PERMUTATION_ALPHA } from "./verdictReference";
+import {
+  baseDrawCount,
+  chiSquareQuantileUpper,
+  PERMUTATION_WORK_LIMIT,
+  SMALLEST_PERMUTATION_ALPHA,
+} from "./verdictReference";
+import { sidakAdjust, sidakLevel } from "./multiplicity";
+import { kthSmallest } from "./ranks";
 import { SeedHash } from "./seededDraws";
 
 export interface AuditReferenceInput {
@@ -77,6 +89,9 @@ const NULL_STRENGTHS = [1, 1.25] as const;
 export function auditLevels(input: AuditReferenceInput): AuditLevels {
   const h = input.horizon;
   const rho = Array.from({ length: h - 1 }, (_, j) => input.correlation[j + 1] as number);
+  if (input.n * input.maxLag > PERMUTATION_WORK_LIMIT) {
+    return normalLimitAudit(input, fitMovingAverage(rho, h - 1));
+  }
   const strengths = h === 1 ? [1] : NULL_STRENGTHS;
   const candidates = strengths.map((strength) =>
     levelsUnder(
@@ -251,4 +266,80 @@ function countAtLeast(values: Float64Array, x: number): number {
   let count = 0;
   for (let b = 0; b < values.length; b++) if ((values[b] as number) >= x) count++;
   return count;
+}
+
+const NORMAL_LIMIT_DRAWS = 19_999;
+
+interface AuditLimit {
+  readonly structureLevel: number;
+  readonly watchLevel: number;
+}
+
+const auditLimits = new Map<string, AuditLimit>();
+
+/**
+ * The audit's levels for long series (n·K above the permutation work limit), where drawing whole
+ * series is too costly and the asymptotics hold: the corrected t close to N(0, 1), the
+ * standardised lags h..K close to independent N(0, 1) and the later-lags Q to χ² with one df per
+ * lag (laterLags.ts). a* is the alpha-quantile of the smallest of the three p-values over 19,999
+ * simulated vectors, computed once per (lags, alpha, key lags); below 25 draws beyond the level
+ * each rule takes alpha/3.
+ */
+function normalLimitAudit(input: AuditReferenceInput, model: MovingAverageModel): AuditLevels {
+  const { n, horizon: h, maxLag: K, alpha, pairs, keyLags, innerLevel } = input;
+  const tested = countTested(pairs, h, K);
+  const relative = keyLags.map((lag) => lag - h + 1).filter((lag) => lag >= 1 && lag <= tested);
+  const key = `${tested}|${alpha}|${relative.join(",")}`;
+  let limit = auditLimits.get(key);
+  if (limit === undefined) {
+    const stream = new SeedHash().word("audit-normal-limit").word(key).stream();
+    const chances = crossingChances(tested, alpha);
+    const s = new Float64Array(NORMAL_LIMIT_DRAWS);
+    const w = new Float64Array(NORMAL_LIMIT_DRAWS);
+    const z = new Float64Array(tested);
+    const summary: DrawSummary = { q: 0, largest: 0, keyLargest: 0, crossings: 0 };
+    for (let b = 0; b < NORMAL_LIMIT_DRAWS; b++) {
+      const t = stream.normal();
+      let q = 0;
+      for (let k = 0; k < tested; k++) {
+        z[k] = stream.normal();
+        q += (z[k] as number) ** 2;
+      }
+      summarise(z, relative, innerLevel, summary);
+      s[b] = Math.min(
+        normalTwoSided(t),
+        chiSquareUpperTail(q, tested),
+        sidakAdjust(normalTwoSided(summary.largest), tested),
+      );
+      w[b] = Math.min(
+        relative.length > 0 ? normalTwoSided(summary.keyLargest) : 1,
+        chances[summary.crossings] as number,
+      );
+    }
+    const allowed = Math.floor(alpha * (NORMAL_LIMIT_DRAWS + 1) + 1e-9);
+    limit = {
+      structureLevel: allowed >= 25 ? Math.min(alpha, kthSmallest(s, allowed)) : alpha / 3,
+      watchLevel: allowed >= 25 ? Math.min(alpha, kthSmallest(w, allowed)) : alpha / 3,
+    };
+    if (auditLimits.size > 256) auditLimits.clear();
+    auditLimits.set(key, limit);
+  }
+  const { structureLevel, watchLevel } = limit;
+  const criticalT = normalQuantile(1 - structureLevel / 2);
+  const criticalQ = chiSquareQuantileUpper(structureLevel, tested);
+  const p = chiSquareUpperTail(input.q, tested);
+  return {
+    reference: "normal-limit",
+    draws: NORMAL_LIMIT_DRAWS,
+    model,
+    structureLevel,
+    criticalQ,
+    outerLevel: normalQuantile(1 - sidakLevel(structureLevel, tested) / 2),
+    watchLevel,
+    jointP: { p, reference: "chi-square", draws: 0, bound: p <= 1e-300 },
+    jointRejects: input.q > criticalQ,
+    criticalT,
+    biasLevel: studentTwoSided(criticalT, n - 1),
+    biasFlagged: Math.abs(input.tCorrected) > criticalT,
+  };
 }

@@ -370,7 +370,7 @@ function normalLimit(
 }
 
 /** x with P(χ²_df ≥ x) = p, by bisection on the upper tail (60 halvings: to the last bit). */
-function chiSquareQuantileUpper(p: number, df: number): number {
+export function chiSquareQuantileUpper(p: number, df: number): number {
   let low = 0;
   let high = df + 10 * Math.sqrt(2 * df) + 100;
   while (chiSquareUpperTail(high, df) > p) high *= 2;

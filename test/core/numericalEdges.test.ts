@@ -5,7 +5,14 @@
  * and a runs test with one value on each side of its median.
  */
 import { describe, expect, it } from "vitest";
-import { biasCheck, isEcholotError, lagTable, runsCheck, seriesFromNumbers } from "../../src/core";
+import {
+  biasCheck,
+  forecastAudit,
+  isEcholotError,
+  lagTable,
+  runsCheck,
+  seriesFromNumbers,
+} from "../../src/core";
 import { seededRandom } from "../../src/sim/random";
 import { exactAutocorrelations, exactOfDouble } from "../helpers/exact";
 import { expectClose } from "../helpers/expectClose";
@@ -87,4 +94,20 @@ describe("runsCheck with one value on each side of the median", () => {
     expect(isEcholotError(error) && error.kind === "short").toBe(true);
     expect(String((error as Error).message)).toMatch(/at least 3 values off the median/);
   });
+});
+
+describe("forecastAudit on long series", () => {
+  it("forecastAudit(300,000 MA(2) errors, horizon 3) refers to the normal limit, at a common level within (α/3, α]", () => {
+    // Drawing 998 series of 300,000 values would take minutes; the asymptotic reference is used.
+    const random = seededRandom(300);
+    const x = Array.from({ length: 300_000 }, () => random.normal());
+    for (let t = x.length - 1; t >= 2; t--) {
+      x[t] = (x[t] as number) + 0.5 * (x[t - 1] as number) + 0.25 * (x[t - 2] as number);
+    }
+    const audit = forecastAudit(seriesFromNumbers(x), { horizon: 3 });
+    expect(audit.levels.reference).toBe("normal-limit");
+    expect(audit.levels.jointP.reference).toBe("chi-square");
+    expect(audit.levels.structureLevel).toBeGreaterThan(0.05 / 3);
+    expect(audit.levels.structureLevel).toBeLessThanOrEqual(0.05);
+  }, 120_000);
 });
