@@ -35,11 +35,11 @@ import { fitMovingAverage, type MovingAverageModel } from "./movingAverageFit";
 import {
   baseDrawCount,
   chiSquareQuantileUpper,
+  limitLevel,
   PERMUTATION_WORK_LIMIT,
   SMALLEST_PERMUTATION_ALPHA,
 } from "./verdictReference";
 import { sidakAdjust, sidakLevel } from "./multiplicity";
-import { kthSmallest } from "./ranks";
 import { SeedHash } from "./seededDraws";
 
 export interface AuditReferenceInput {
@@ -316,11 +316,7 @@ function normalLimitAudit(input: AuditReferenceInput, model: MovingAverageModel)
         chances[summary.crossings] as number,
       );
     }
-    const allowed = Math.floor(alpha * (NORMAL_LIMIT_DRAWS + 1) + 1e-9);
-    limit = {
-      structureLevel: allowed >= 25 ? Math.min(alpha, kthSmallest(s, allowed)) : alpha / 3,
-      watchLevel: allowed >= 25 ? Math.min(alpha, kthSmallest(w, allowed)) : alpha / 3,
-    };
+    limit = { structureLevel: limitLevel(s, alpha, 3), watchLevel: limitLevel(w, alpha, 3) };
     if (auditLimits.size > 256) auditLimits.clear();
     auditLimits.set(key, limit);
   }

@@ -353,11 +353,8 @@ function normalLimit(
       chances[summary.crossings] as number,
     );
   }
-  // With fewer than 25 draws beyond the level (alpha below 0.00125) the quantile is not worth
-  // drawing for: each rule then takes alpha/2 (Bonferroni), which holds alpha together.
-  const allowed = Math.floor(alpha * (NORMAL_LIMIT_DRAWS + 1) + 1e-9);
-  const structureLevel = allowed >= 25 ? Math.min(alpha, kthSmallest(s, allowed)) : alpha / 2;
-  const watchLevel = allowed >= 25 ? Math.min(alpha, kthSmallest(w, allowed)) : alpha / 2;
+  const structureLevel = limitLevel(s, alpha, 2);
+  const watchLevel = limitLevel(w, alpha, 2);
   const limit = {
     structureLevel,
     criticalQ: chiSquareQuantileUpper(structureLevel, df),
@@ -367,6 +364,17 @@ function normalLimit(
   if (normalLimits.size > 256) normalLimits.clear();
   normalLimits.set(key, limit);
   return limit;
+}
+
+/**
+ * The alpha-quantile of a min-p statistic simulated under the normal limit (`draws` holds one
+ * value per simulated vector), at most alpha. With fewer than 25 draws beyond the level (alpha
+ * below 0.00125) the quantile is not worth drawing for: each of the `rules` then takes
+ * alpha/rules (Bonferroni), which holds alpha together.
+ */
+export function limitLevel(draws: Float64Array, alpha: number, rules: number): number {
+  const allowed = Math.floor(alpha * (draws.length + 1) + 1e-9);
+  return allowed >= 25 ? Math.min(alpha, kthSmallest(draws, allowed)) : alpha / rules;
 }
 
 /** x with P(χ²_df ≥ x) = p, by bisection on the upper tail (60 halvings: to the last bit). */
