@@ -25,7 +25,8 @@ export async function runDemo(): Promise<string> {
     const file = join(demoDirectory(), scenario.file);
     lines.push(scenario.title, `  ${scenario.story}`, `  file: ${file}`, "");
     const { series } = await readManySeries(readingFrom(file, {}), {});
-    lines.push(...(series.length > 1 ? batchLines(scenario, series) : oneLines(scenario, series)));
+    const shown = series.length > 1 ? batchLines(scenario, series) : oneLines(scenario, series);
+    for (const line of shown) lines.push(line);
     lines.push("");
   }
   lines.push(SCREENING_CAUTION);
