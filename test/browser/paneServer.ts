@@ -186,3 +186,11 @@ export function violations(page: Page): Promise<Violation[]> {
     () => (window as unknown as { echolotViolations: Violation[] }).echolotViolations,
   );
 }
+
+/** Unfolds the standalone page's data panel (it folds away once data are in), as a user would. */
+export async function openDataPanel(page: Page): Promise<void> {
+  const open = await page.evaluate(
+    () => (document.getElementById("data-panel") as HTMLDetailsElement).open,
+  );
+  if (!open) await page.click("#data-panel > summary");
+}

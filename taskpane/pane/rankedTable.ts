@@ -1,0 +1,139 @@
+/**
+ * The ranked table of a block's items, most telling first: each item's name is a button that
+ * shows the item (a native button, so Tab reaches it and Enter or Space presses it; the arrow
+ * keys move between rows), the item shown is marked `aria-current`, the rows the false-discovery
+ * step keeps are marked (class and a visible word), and a cut-off line follows the last kept row.
+ * Text goes in as text (textContent), never as markup. Order, kept mark and figures come from
+ * src/report/rankedList.ts.
+ */
+import { rankedPText, verdictCellText, type RankedItem, type RankedList } from "../../src/report";
+
+function cell(tag: "td" | "th", text: string, className?: string): HTMLTableCellElement {
+  const element = document.createElement(tag);
+  element.textContent = text;
+  if (className !== undefined) element.className = className;
+  return element;
+}
+
+function columns(list: RankedList): readonly [string, (item: RankedItem) => string][] {
+  return list.kind === "audit"
+    ? [
+        ["q, lags", (item) => rankedPText(item.qValue)],
+        ["q, bias", (item) => rankedPText(item.biasQValue)],
+      ]
+    : [
+        ["p", (item) => rankedPText(item.p)],
+        ["q-value", (item) => rankedPText(item.qValue)],
+      ];
+}
+
+function captionText(list: RankedList): string {
+  const what = list.kind === "audit" ? "audited" : "checked";
+  const key = list.kind === "audit" ? "the smaller of the dependence and bias q-values" : "q-value";
+  const kept =
+    list.keptCount === 0
+      ? `none is kept after the false-discovery step (q-value at most ${list.alpha})`
+      : `${list.keptCount} kept after the false-discovery step (q-value at most ${list.alpha}), above the cut-off line`;
+  return `${list.items.length} items ${what}, ranked by ${key}: ${kept}. Choose an item to show it.`;
+}
+
+export class RankedTable {
+  private buttons: HTMLButtonElement[] = [];
+
+  constructor(
+    private readonly host: HTMLElement,
+    private readonly choose: (index: number) => void,
+  ) {}
+
+  render(list: RankedList, shown: number): void {
+    const table = document.createElement("table");
+    table.className = `ranked ${list.kind}`;
+    table.createCaption().textContent = captionText(list);
+    const figures = columns(list);
+    const headRow = table.createTHead().insertRow();
+    const heads: [string, string][] = [
+      ["#", "rank"],
+      ["item", "item"],
+      ...figures.map(([title]): [string, string] => [title, "figure"]),
+      ["verdict", "verdict"],
+    ];
+    for (const [title, className] of heads) {
+      const th = cell("th", title, className);
+      th.scope = "col";
+      headRow.append(th);
+    }
+    const body = table.createTBody();
+    this.buttons = [];
+    list.items.forEach((item, position) => {
+      const row = body.insertRow();
+      if (item.kept) row.className = "kept";
+      row.append(cell("td", String(item.rank), "rank"));
+      const name = cell("th", "", "item");
+      name.scope = "row";
+      const button = document.createElement("button");
+      button.type = "button";
+      button.className = "item-button";
+      button.dataset.index = String(item.index);
+      button.textContent = item.label;
+      button.title = item.reason;
+      button.addEventListener("click", () => this.choose(item.index));
+      button.addEventListener("keydown", (event) => this.move(event, position));
+      name.append(button);
+      if (item.kept) {
+        const tag = document.createElement("span");
+        tag.className = "kept-tag";
+        tag.textContent = "kept";
+        name.append(tag);
+      }
+      row.append(name);
+      for (const [, value] of figures) row.append(cell("td", value(item), "figure"));
+      const verdict = cell("td", verdictCellText(item.word), "verdict");
+      if (item.word !== null) verdict.dataset.word = item.word;
+      row.append(verdict);
+      this.buttons.push(button);
+      const last = position === list.keptCount - 1 && list.keptCount < list.items.length;
+      if (item.kept && last) {
+        const cut = body.insertRow();
+        cut.className = "cutoff";
+        const note = cell(
+          "td",
+          `false-discovery cut-off: the ${list.keptCount} item${list.keptCount === 1 ? "" : "s"} above are kept`,
+        );
+        note.colSpan = 3 + figures.length;
+        cut.append(note);
+      }
+    });
+    this.host.replaceChildren(table);
+    this.markShown(shown);
+  }
+
+  /** Marks the row of the item shown; the others lose the mark. */
+  markShown(index: number): void {
+    for (const button of this.buttons) {
+      const current = Number(button.dataset.index) === index;
+      if (current) button.setAttribute("aria-current", "true");
+      else button.removeAttribute("aria-current");
+      button.closest("tr")?.classList.toggle("shown", current);
+    }
+  }
+
+  clear(): void {
+    this.buttons = [];
+    this.host.replaceChildren();
+  }
+
+  /** Arrow keys, Home and End move between the rows' buttons (Tab still walks them in order). */
+  private move(event: KeyboardEvent, position: number): void {
+    const moves: Record<string, number> = {
+      ArrowDown: position + 1,
+      ArrowUp: position - 1,
+      Home: 0,
+      End: this.buttons.length - 1,
+    };
+    const target = moves[event.key];
+    const button = target === undefined ? undefined : this.buttons[target];
+    if (button === undefined) return;
+    event.preventDefault();
+    button.focus();
+  }
+}

@@ -1,0 +1,296 @@
+/**
+ * The pane at scale and by measurement, in Debian's Chromium: the demand planner's 150-item file
+ * (ranked first item, row buttons, keyboard, export, audit mode), the finance analyst's 500
+ * clustered residuals pasted with decimal commas, the verdict in a live region, a refused setting
+ * marked at its field, and no sideways scroll at 300 px. Screenshots land in test-output/ for a
+ * person to look at. The data come from the seeded generator beside this file.
+ */
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
+import type { Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import {
+  builtPane,
+  launchChromium,
+  openDataPanel,
+  ROOT,
+  servePane,
+  type Browser,
+  type PaneServer,
+} from "./paneServer";
+import { analystResiduals, plannerCsv, plannerItems } from "./userFiles";
+
+const OUTPUT = join(ROOT, "test-output");
+const PLANNER_FILE = join(OUTPUT, "planner-150-items.csv");
+const items = plannerItems();
+const kindOf = new Map(items.map((item) => [item.label, item.kind]));
+
+describe("the pane with the planner's 150 items and the analyst's residuals", () => {
+  let server: PaneServer;
+  let browser: Browser | undefined;
+  let page: Page;
+  const problems: string[] = [];
+
+  beforeAll(async () => {
+    mkdirSync(OUTPUT, { recursive: true });
+    writeFileSync(PLANNER_FILE, plannerCsv(items));
+    server = await servePane(builtPane());
+    browser = await launchChromium();
+    const context = browser.context;
+    await context.route("**/*", (route) =>
+      new URL(route.request().url()).hostname === "127.0.0.1"
+        ? route.continue()
+        : route.abort("blockedbyclient"),
+    );
+    page = context.pages()[0] ?? (await context.newPage());
+    page.on("pageerror", (error) => problems.push(`page error: ${error.message}`));
+    await page.goto(`${server.origin}/taskpane.html`);
+    await page.locator("#data-panel").waitFor({ state: "visible" });
+    await page.setInputFiles("#file-pick", PLANNER_FILE);
+    await page.locator("#result").waitFor({ state: "visible", timeout: 120_000 });
+  }, 240_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+
+  const rowLabels = () =>
+    page.locator("#batch tbody tr:not(.cutoff) .item-button").allTextContents();
+  const status = () => page.textContent("#verdict-status");
+  const top = (selector: string) =>
+    page.evaluate((s) => document.querySelector(s)?.getBoundingClientRect().top ?? NaN, selector);
+
+  it("opens on the top-ranked item, with settings above a ranked table of buttons near the top", async () => {
+    const labels = await rowLabels();
+    expect(labels).toHaveLength(150);
+    const first = labels[0] as string;
+    expect(await page.textContent("#series-label")).toBe(first);
+    // The seeded file's most telling item is one with real leftover structure, not noise.
+    expect(["ar1", "cycle"]).toContain(kindOf.get(first));
+    expect(
+      await page.getAttribute("#batch tbody tr:first-child .item-button", "aria-current"),
+    ).toBe("true");
+    // q-values ascend down the table (the rank's key).
+    const q = (
+      await page.locator("#batch tbody tr:not(.cutoff) td:nth-child(4)").allTextContents()
+    ).map(Number);
+    expect(q.every((v, i) => i === 0 || v >= (q[i - 1] as number))).toBe(true);
+    // The data panel folded to one line; settings, then the table, within the first screen.
+    expect(
+      await page.evaluate(() => (document.getElementById("data-panel") as HTMLDetailsElement).open),
+    ).toBe(false);
+    expect(await page.textContent("#data-summary")).toContain("planner-150-items.csv, 150 items");
+    const settingsTop = await top("#settings-panel");
+    const tableTop = await top("#batch-panel");
+    expect(settingsTop).toBeLessThan(tableTop);
+    expect(tableTop).toBeLessThan(600);
+    // The picker lists the items in the table's order.
+    const picked = await page.locator("#column-pick option").allTextContents();
+    expect(picked.map((t) => t.replace(/^\d+\. /, "").replace(/ \([^)]*\)$/, ""))).toEqual(labels);
+    await expect.poll(status).toMatch(new RegExp(`^${first}: . \\w+, ranked 1 of 150`));
+    await page.screenshot({ path: join(OUTPUT, "pane-planner-150.png") });
+  });
+
+  it("marks the kept rows with a style and a word, and draws the cut-off after the last", async () => {
+    const rows = page.locator("#batch tbody tr");
+    const classes = await rows.evaluateAll((trs) =>
+      trs.map((tr) => ["kept", "cutoff"].find((c) => tr.classList.contains(c)) ?? ""),
+    );
+    const kept = classes.filter((c) => c === "kept").length;
+    expect(kept).toBeGreaterThan(0);
+    // Kept rows first, then exactly one cut-off row, then the rest.
+    expect(classes.slice(0, kept).every((c) => c === "kept")).toBe(true);
+    expect(classes[kept]).toBe("cutoff");
+    expect(classes.slice(kept + 1).every((c) => c !== "kept" && c !== "cutoff")).toBe(true);
+    const q = await page.locator("#batch tbody tr.kept td:nth-child(4)").allTextContents();
+    expect(q.every((t) => Number(t) <= 0.05)).toBe(true);
+    const look = (selector: string) =>
+      page.evaluate((s) => {
+        const row = document.querySelector(s) as HTMLElement;
+        return getComputedStyle(row).backgroundColor;
+      }, selector);
+    expect(await look("#batch tbody tr.kept")).not.toBe(await look("#batch tbody tr:last-child"));
+    expect(
+      await page.evaluate(
+        () =>
+          getComputedStyle(document.querySelector("#batch tr.cutoff td") as Element).borderTopWidth,
+      ),
+    ).toBe("3px");
+    expect(await page.locator("#batch tr.kept .kept-tag").count()).toBe(kept);
+  });
+
+  it("shows an item when its row button is clicked, and says its verdict", async () => {
+    const labels = await rowLabels();
+    const fifth = labels[4] as string;
+    await page.locator("#batch tbody tr:not(.cutoff)").nth(4).locator("button").click();
+    await expect.poll(() => page.textContent("#series-label")).toBe(fifth);
+    await expect.poll(status).toMatch(new RegExp(`^${fifth}: .+, ranked 5 of 150`));
+    const current = await page
+      .locator('#batch .item-button[aria-current="true"]')
+      .allTextContents();
+    expect(current).toEqual([fifth]);
+    expect(await page.inputValue("#column-pick")).toBe(
+      await page
+        .locator("#batch tbody tr:not(.cutoff)")
+        .nth(4)
+        .locator("button")
+        .getAttribute("data-index"),
+    );
+  });
+
+  it("works from the keyboard alone: Tab reaches the rows, arrows move, Enter and Space show", async () => {
+    const labels = await rowLabels();
+    await page.focus("#column-pick");
+    await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe(labels[0]);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.textContent("#series-label")).toBe(labels[0]);
+    await page.keyboard.press("ArrowDown");
+    await page.keyboard.press("ArrowDown");
+    await page.keyboard.press("Space");
+    await expect.poll(() => page.textContent("#series-label")).toBe(labels[2]);
+    await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe(labels[3]);
+    await page.keyboard.press("End");
+    await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe("export-ranked");
+    // A visible focus ring on the row buttons (the page's :focus-visible rule).
+    await page.keyboard.press("Shift+Tab");
+    const outline = await page.evaluate(
+      () => getComputedStyle(document.activeElement as Element).outlineStyle,
+    );
+    expect(outline).toBe("solid");
+  });
+
+  it("exports the ranked list as a CSV download in the table's order", async () => {
+    const labels = await rowLabels();
+    const [download] = await Promise.all([
+      page.waitForEvent("download"),
+      page.click("#export-ranked"),
+    ]);
+    expect(download.suggestedFilename()).toBe(
+      "echolot-ranked-planner-150-items-csv-left-aside-week-an-id-or-time-column.csv",
+    );
+    const text = readFileSync(await download.path(), "utf8");
+    const lines = text.trimEnd().split("\r\n");
+    expect(lines).toHaveLength(151);
+    expect(lines[0]).toBe("rank,item,n,p,q-value,kept (q-value at most 0.05),verdict,reason");
+    const exported = lines.slice(1).map((line) => line.split(",")[1]);
+    expect(exported).toEqual(labels);
+    expect(lines[1]?.startsWith(`1,${labels[0]},104,`)).toBe(true);
+    await expect
+      .poll(() => page.textContent("#export-status"))
+      .toContain("150 items, most telling first");
+  });
+
+  it("audits the forecasts with a horizon: bias and dependence q-values, the biased items kept", async () => {
+    await page.selectOption("#set-check", "audit");
+    await expect
+      .poll(() => page.locator("#batch table.audit").count(), { timeout: 60_000 })
+      .toBe(1);
+    const head = await page.locator("#batch thead th").allTextContents();
+    expect(head).toEqual(["#", "item", "q, lags", "q, bias", "verdict"]);
+    const kept = await page.locator("#batch tbody tr.kept .item-button").allTextContents();
+    const biased = items.filter((item) => item.kind === "biased").map((item) => item.label);
+    // Bias of 0.8 σ over 104 weeks: t about 8, far beyond any false-discovery threshold.
+    for (const label of biased) expect(kept).toContain(label);
+    await expect
+      .poll(() => page.textContent("#audit-line"))
+      .toMatch(/^Forecast audit, horizon 1: /);
+    await expect.poll(status).toMatch(/forecast audit, horizon 1: /);
+    // A refused horizon is marked at its field, in the label's words; the result stays.
+    await page.fill("#set-horizon", "0");
+    await page.dispatchEvent("#set-horizon", "change");
+    await expect.poll(() => page.getAttribute("#set-horizon", "aria-invalid")).toBe("true");
+    expect(await page.textContent("#settings-problem")).toMatch(
+      /^Horizon must be a whole number from 1 to /,
+    );
+    expect(await page.isVisible("#result")).toBe(true);
+    await page.fill("#set-horizon", "");
+    await page.selectOption("#set-check", "noise");
+    await expect
+      .poll(() => page.locator("#batch table.batch").count(), { timeout: 60_000 })
+      .toBe(1);
+    expect(await page.getAttribute("#set-horizon", "aria-invalid")).toBeNull();
+  });
+
+  it("marks a refused setting in the label's words and keeps the last valid result", async () => {
+    const shown = await page.textContent("#series-label");
+    await page.fill("#set-max-lag", "500");
+    await page.dispatchEvent("#set-max-lag", "change");
+    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid")).toBe("true");
+    const message = (await page.textContent("#settings-problem")) ?? "";
+    expect(message).toMatch(/^Max lag must be a whole number from 1 to 103/);
+    expect(message).not.toContain("maxLag");
+    expect(message).toContain("The result shown is still the one for the last valid settings.");
+    expect(await page.getAttribute("#set-max-lag", "aria-describedby")).toContain(
+      "settings-problem",
+    );
+    expect(await page.isVisible("#result")).toBe(true);
+    expect(await page.textContent("#series-label")).toBe(shown);
+    await page.fill("#set-max-lag", "");
+    await page.dispatchEvent("#set-max-lag", "change");
+    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid")).toBeNull();
+    expect(await page.isVisible("#settings-problem")).toBe(false);
+  });
+
+  it("has no sideways scroll at 300 px, and nothing sticks out of the page", async () => {
+    await page.setViewportSize({ width: 300, height: 900 });
+    await page.waitForTimeout(400);
+    const measure = () =>
+      page.evaluate(() => {
+        const root = document.documentElement;
+        const outside = Array.from(document.querySelectorAll("#pane *"))
+          .filter((e) => e.getClientRects().length > 0 && !e.closest(".visually-hidden"))
+          .filter((e) => e.getBoundingClientRect().right > root.clientWidth + 0.5)
+          .map((e) => `${e.tagName.toLowerCase()}#${e.id}.${e.className}`);
+        return { scroll: root.scrollWidth, client: root.clientWidth, outside };
+      });
+    const batch = await measure();
+    expect(batch.scroll).toBeLessThanOrEqual(batch.client);
+    expect(batch.outside).toEqual([]);
+    await page.screenshot({ path: join(OUTPUT, "pane-planner-300px.png") });
+    await page.evaluate(
+      () => ((document.getElementById("figures-box") as HTMLDetailsElement).open = true),
+    );
+    const figures = await measure();
+    expect(figures.scroll).toBeLessThanOrEqual(figures.client);
+    expect(figures.outside).toEqual([]);
+    await page.setViewportSize({ width: 360, height: 900 });
+  });
+
+  it("reads the analyst's residuals pasted with decimal commas as decimals, and says so", async () => {
+    const residuals = Array.from(analystResiduals());
+    await openDataPanel(page);
+    await page.fill("#paste-box", residuals.map((r) => String(r)).join("\n"));
+    await page.click("#paste-read");
+    await expect.poll(() => page.textContent("#series-meta")).toContain("n = 500");
+    const pointFigures = await page.textContent("#figures");
+    const pointStatus = await status();
+    const comma = residuals.map((r) => String(r).replace(".", ",")).join("\n");
+    await openDataPanel(page);
+    await page.fill("#paste-box", comma);
+    await page.click("#paste-read");
+    const example = String(residuals[0]);
+    await expect
+      .poll(() => page.textContent("#reading-note"))
+      .toBe(
+        `Read as one value a line, decimal comma: "${example.replace(".", ",")}" is ${example}.`,
+      );
+    expect(await page.textContent("#series-meta")).toContain("n = 500");
+    expect(await page.textContent("#figures")).toBe(pointFigures);
+    await expect.poll(status).toBe(pointStatus);
+    expect(await page.isVisible("#batch-panel")).toBe(false);
+    // Semicolon-separated on one line: one series, read the same.
+    await openDataPanel(page);
+    await page.fill("#paste-box", residuals.map((r) => String(r).replace(".", ",")).join(";"));
+    await page.click("#paste-read");
+    await expect
+      .poll(() => page.textContent("#reading-note"))
+      .toMatch(/^Read as one row of values, decimal comma/);
+    expect(await page.textContent("#figures")).toBe(pointFigures);
+    await page.screenshot({ path: join(OUTPUT, "pane-analyst-decimal-comma.png") });
+    expect(problems).toEqual([]);
+  });
+});
