@@ -15,15 +15,16 @@ function cell(tag: "td" | "th", text: string, className?: string): HTMLTableCell
   return element;
 }
 
-function columns(list: RankedList): readonly [string, (item: RankedItem) => string][] {
+/** The figure columns: title, value, and its class ("secondary" ones give way in a narrow pane). */
+function columns(list: RankedList): readonly [string, (item: RankedItem) => string, string][] {
   return list.kind === "audit"
     ? [
-        ["q, lags", (item) => rankedPText(item.qValue)],
-        ["q, bias", (item) => rankedPText(item.biasQValue)],
+        ["q, lags", (item) => rankedPText(item.qValue), "figure"],
+        ["q, bias", (item) => rankedPText(item.biasQValue), "figure"],
       ]
     : [
-        ["p", (item) => rankedPText(item.p)],
-        ["q-value", (item) => rankedPText(item.qValue)],
+        ["p", (item) => rankedPText(item.p), "figure secondary"],
+        ["q-value", (item) => rankedPText(item.qValue), "figure"],
       ];
 }
 
@@ -54,7 +55,7 @@ export class RankedTable {
     const heads: [string, string][] = [
       ["#", "rank"],
       ["item", "item"],
-      ...figures.map(([title]): [string, string] => [title, "figure"]),
+      ...figures.map(([title, , className]): [string, string] => [title, className]),
       ["verdict", "verdict"],
     ];
     for (const [title, className] of heads) {
@@ -86,21 +87,20 @@ export class RankedTable {
         name.append(tag);
       }
       row.append(name);
-      for (const [, value] of figures) row.append(cell("td", value(item), "figure"));
+      for (const [, value, className] of figures) row.append(cell("td", value(item), className));
       const verdict = cell("td", verdictCellText(item.word), "verdict");
       if (item.word !== null) verdict.dataset.word = item.word;
       row.append(verdict);
       this.buttons.push(button);
       const last = position === list.keptCount - 1 && list.keptCount < list.items.length;
       if (item.kept && last) {
+        // One cell per column, so a column a narrow pane hides stays hidden on this row too.
         const cut = body.insertRow();
         cut.className = "cutoff";
-        const note = cell(
-          "td",
-          `false-discovery cut-off: the ${list.keptCount} item${list.keptCount === 1 ? "" : "s"} above are kept`,
-        );
-        note.colSpan = 3 + figures.length;
-        cut.append(note);
+        cut.append(cell("td", "", "rank"));
+        cut.append(cell("td", `false-discovery cut-off: ${list.keptCount} kept above`, "cut-note"));
+        for (const [, , className] of figures) cut.append(cell("td", "", className));
+        cut.append(cell("td", "", "verdict"));
       }
     });
     this.host.replaceChildren(table);

@@ -21,6 +21,8 @@ import {
 import { analystResiduals, plannerCsv, plannerItems } from "./userFiles";
 
 const OUTPUT = join(ROOT, "test-output");
+/** How long a poll waits for a recomputation: generous, for a loaded 2-core machine. */
+const WAIT = { timeout: 60_000 };
 const PLANNER_FILE = join(OUTPUT, "planner-150-items.csv");
 const items = plannerItems();
 const kindOf = new Map(items.map((item) => [item.label, item.kind]));
@@ -88,7 +90,7 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     // The picker lists the items in the table's order.
     const picked = await page.locator("#column-pick option").allTextContents();
     expect(picked.map((t) => t.replace(/^\d+\. /, "").replace(/ \([^)]*\)$/, ""))).toEqual(labels);
-    await expect.poll(status).toMatch(new RegExp(`^${first}: . \\w+, ranked 1 of 150`));
+    await expect.poll(status, WAIT).toMatch(new RegExp(`^${first}: . \\w+, ranked 1 of 150`));
     await page.screenshot({ path: join(OUTPUT, "pane-planner-150.png") });
   });
 
@@ -124,8 +126,8 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     const labels = await rowLabels();
     const fifth = labels[4] as string;
     await page.locator("#batch tbody tr:not(.cutoff)").nth(4).locator("button").click();
-    await expect.poll(() => page.textContent("#series-label")).toBe(fifth);
-    await expect.poll(status).toMatch(new RegExp(`^${fifth}: .+, ranked 5 of 150`));
+    await expect.poll(() => page.textContent("#series-label"), WAIT).toBe(fifth);
+    await expect.poll(status, WAIT).toMatch(new RegExp(`^${fifth}: .+, ranked 5 of 150`));
     const current = await page
       .locator('#batch .item-button[aria-current="true"]')
       .allTextContents();
@@ -145,11 +147,11 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     await page.keyboard.press("Tab");
     expect(await page.evaluate(() => document.activeElement?.textContent)).toBe(labels[0]);
     await page.keyboard.press("Enter");
-    await expect.poll(() => page.textContent("#series-label")).toBe(labels[0]);
+    await expect.poll(() => page.textContent("#series-label"), WAIT).toBe(labels[0]);
     await page.keyboard.press("ArrowDown");
     await page.keyboard.press("ArrowDown");
     await page.keyboard.press("Space");
-    await expect.poll(() => page.textContent("#series-label")).toBe(labels[2]);
+    await expect.poll(() => page.textContent("#series-label"), WAIT).toBe(labels[2]);
     await page.keyboard.press("Tab");
     expect(await page.evaluate(() => document.activeElement?.textContent)).toBe(labels[3]);
     await page.keyboard.press("End");
@@ -180,15 +182,13 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(exported).toEqual(labels);
     expect(lines[1]?.startsWith(`1,${labels[0]},104,`)).toBe(true);
     await expect
-      .poll(() => page.textContent("#export-status"))
+      .poll(() => page.textContent("#export-status"), WAIT)
       .toContain("150 items, most telling first");
   });
 
   it("audits the forecasts with a horizon: bias and dependence q-values, the biased items kept", async () => {
     await page.selectOption("#set-check", "audit");
-    await expect
-      .poll(() => page.locator("#batch table.audit").count(), { timeout: 60_000 })
-      .toBe(1);
+    await expect.poll(() => page.locator("#batch table.audit").count(), WAIT).toBe(1);
     const head = await page.locator("#batch thead th").allTextContents();
     expect(head).toEqual(["#", "item", "q, lags", "q, bias", "verdict"]);
     const kept = await page.locator("#batch tbody tr.kept .item-button").allTextContents();
@@ -196,22 +196,20 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     // Bias of 0.8 σ over 104 weeks: t about 8, far beyond any false-discovery threshold.
     for (const label of biased) expect(kept).toContain(label);
     await expect
-      .poll(() => page.textContent("#audit-line"))
+      .poll(() => page.textContent("#audit-line"), WAIT)
       .toMatch(/^Forecast audit, horizon 1: /);
-    await expect.poll(status).toMatch(/forecast audit, horizon 1: /);
+    await expect.poll(status, WAIT).toMatch(/forecast audit, horizon 1: /);
     // A refused horizon is marked at its field, in the label's words; the result stays.
     await page.fill("#set-horizon", "0");
     await page.dispatchEvent("#set-horizon", "change");
-    await expect.poll(() => page.getAttribute("#set-horizon", "aria-invalid")).toBe("true");
+    await expect.poll(() => page.getAttribute("#set-horizon", "aria-invalid"), WAIT).toBe("true");
     expect(await page.textContent("#settings-problem")).toMatch(
       /^Horizon must be a whole number from 1 to /,
     );
     expect(await page.isVisible("#result")).toBe(true);
     await page.fill("#set-horizon", "");
     await page.selectOption("#set-check", "noise");
-    await expect
-      .poll(() => page.locator("#batch table.batch").count(), { timeout: 60_000 })
-      .toBe(1);
+    await expect.poll(() => page.locator("#batch table.batch").count(), WAIT).toBe(1);
     expect(await page.getAttribute("#set-horizon", "aria-invalid")).toBeNull();
   });
 
@@ -219,7 +217,7 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     const shown = await page.textContent("#series-label");
     await page.fill("#set-max-lag", "500");
     await page.dispatchEvent("#set-max-lag", "change");
-    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid")).toBe("true");
+    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid"), WAIT).toBe("true");
     const message = (await page.textContent("#settings-problem")) ?? "";
     expect(message).toMatch(/^Max lag must be a whole number from 1 to 103/);
     expect(message).not.toContain("maxLag");
@@ -231,7 +229,7 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(await page.textContent("#series-label")).toBe(shown);
     await page.fill("#set-max-lag", "");
     await page.dispatchEvent("#set-max-lag", "change");
-    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid")).toBeNull();
+    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid"), WAIT).toBeNull();
     expect(await page.isVisible("#settings-problem")).toBe(false);
   });
 
@@ -250,7 +248,9 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     const batch = await measure();
     expect(batch.scroll).toBeLessThanOrEqual(batch.client);
     expect(batch.outside).toEqual([]);
+    await page.evaluate(() => window.scrollTo(0, 0));
     await page.screenshot({ path: join(OUTPUT, "pane-planner-300px.png") });
+    await page.screenshot({ path: join(OUTPUT, "pane-planner-300px-full.png"), fullPage: true });
     await page.evaluate(
       () => ((document.getElementById("figures-box") as HTMLDetailsElement).open = true),
     );
@@ -265,8 +265,9 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     await openDataPanel(page);
     await page.fill("#paste-box", residuals.map((r) => String(r)).join("\n"));
     await page.click("#paste-read");
-    await expect.poll(() => page.textContent("#series-meta")).toContain("n = 500");
+    await expect.poll(() => page.textContent("#series-meta"), WAIT).toContain("n = 500");
     const pointFigures = await page.textContent("#figures");
+    await expect.poll(status, WAIT).toMatch(/^Series: . \w+\.$/);
     const pointStatus = await status();
     const comma = residuals.map((r) => String(r).replace(".", ",")).join("\n");
     await openDataPanel(page);
@@ -274,23 +275,60 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     await page.click("#paste-read");
     const example = String(residuals[0]);
     await expect
-      .poll(() => page.textContent("#reading-note"))
+      .poll(() => page.textContent("#reading-note"), WAIT)
       .toBe(
         `Read as one value a line, decimal comma: "${example.replace(".", ",")}" is ${example}.`,
       );
     expect(await page.textContent("#series-meta")).toContain("n = 500");
     expect(await page.textContent("#figures")).toBe(pointFigures);
-    await expect.poll(status).toBe(pointStatus);
+    await expect.poll(status, WAIT).toBe(pointStatus);
     expect(await page.isVisible("#batch-panel")).toBe(false);
     // Semicolon-separated on one line: one series, read the same.
     await openDataPanel(page);
     await page.fill("#paste-box", residuals.map((r) => String(r).replace(".", ",")).join(";"));
     await page.click("#paste-read");
     await expect
-      .poll(() => page.textContent("#reading-note"))
+      .poll(() => page.textContent("#reading-note"), WAIT)
       .toMatch(/^Read as one row of values, decimal comma/);
     expect(await page.textContent("#figures")).toBe(pointFigures);
     await page.screenshot({ path: join(OUTPUT, "pane-analyst-decimal-comma.png") });
     expect(problems).toEqual([]);
+  });
+
+  it("goes from a fresh page to an item and an export with the keyboard alone", async () => {
+    await page.goto(`${server.origin}/taskpane.html`);
+    await page.locator("#data-panel").waitFor({ state: "visible" });
+    const focused = () => page.evaluate(() => document.activeElement?.id ?? "");
+    const tabUntil = async (id: string, most: number) => {
+      for (let i = 0; i < most && (await focused()) !== id; i++) await page.keyboard.press("Tab");
+      expect(await focused()).toBe(id);
+    };
+    // The demo picker's first scenario is the 24 roasting blends; Open it with Enter.
+    await tabUntil("demo-open", 12);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.locator("#batch .item-button").count(), WAIT).toBe(24);
+    const labels = await rowLabels();
+    expect(await page.textContent("#series-label")).toBe(labels[0]);
+    await expect.poll(status, WAIT).toMatch(new RegExp(`^${labels[0]}: .+, ranked 1 of 24`));
+    // On through the settings and the picker to the first row; the second row shows with Enter.
+    await tabUntil("column-pick", 20);
+    await page.keyboard.press("Tab");
+    await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe(labels[1]);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.textContent("#series-label"), WAIT).toBe(labels[1]);
+    await expect.poll(status, WAIT).toMatch(new RegExp(`^${labels[1]}: .+, ranked 2 of 24`));
+    await page.keyboard.press("End");
+    await page.keyboard.press("Tab");
+    expect(await focused()).toBe("export-ranked");
+    const [download] = await Promise.all([
+      page.waitForEvent("download"),
+      page.keyboard.press("Enter"),
+    ]);
+    expect(download.suggestedFilename()).toMatch(/^echolot-ranked-demo-ternpoint.*\.csv$/);
+    // Then on to the chart's tabs, which the arrow keys switch.
+    await tabUntil("tab-correlation", 6);
+    await page.keyboard.press("ArrowRight");
+    expect(await page.getAttribute("#tab-partial", "aria-selected")).toBe("true");
   });
 });
