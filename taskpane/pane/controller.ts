@@ -74,6 +74,8 @@ export class PaneController {
   private announceTimer: ReturnType<typeof setTimeout> | undefined;
   private ranking: Ranking | null = null;
   private renderedList: RankedList | null = null;
+  /** The data the result on screen was computed from. */
+  private shownInput: PaneInput | null = null;
   /** New data: show the top-ranked item once the ranking is known. */
   private pickTop = false;
   private readonly table: RankedTable;
@@ -138,14 +140,9 @@ export class PaneController {
   /** The data could not be read at all: say what to fix, show nothing stale. */
   showDataProblem(message: string): void {
     this.input = null;
-    this.analysis = null;
     this.ranking = null;
-    this.el.result.hidden = true;
-    this.el.batchPanel.hidden = true;
-    this.table.clear();
+    this.hideResult();
     showMessage(this.el.problem, message);
-    this.announce(message);
-    this.onShown(null);
   }
 
   recompute(): void {
@@ -155,21 +152,26 @@ export class PaneController {
     const text = readSettingsForm(this.el.settings);
     // The horizon belongs to the forecast audit: off (and out of the tab order) otherwise.
     this.el.horizon.disabled = text.check !== "audit";
-    let options: LagOptions;
     let ranking: Ranking | null;
+    let index = this.index;
+    let analysis: SeriesReport;
     try {
-      options = lagOptionsFrom(text);
+      const options = lagOptionsFrom(text);
       ranking = this.rankingFor(input, text, options);
       const top = ranking?.list.items[0];
-      if (this.pickTop && top !== undefined) this.index = top.index;
-      const series = input.series[this.index] ?? input.series[0];
+      if (this.pickTop && top !== undefined) index = top.index;
+      const series = input.series[index] ?? input.series[0];
       if (series === undefined) throw new Error("no series to show");
-      this.analysis = seriesReport(series, options);
+      analysis = seriesReport(series, options);
     } catch (error) {
       if (!isEcholotError(error)) throw error;
       this.refused(error.message);
       return;
     }
+    // Index and analysis change together, so the actions never act on a mismatched pair.
+    this.index = index;
+    this.analysis = analysis;
+    this.shownInput = input;
     this.pickTop = false;
     showMessage(this.el.settingsProblem, null);
     markInvalid(this.el.settings, undefined, this.el.settingsProblem);
@@ -185,21 +187,34 @@ export class PaneController {
   private refused(message: string): void {
     const setting = settingOfMessage(message);
     const form = this.el.settings;
+    const words = inLabelWords(form, message);
+    // The last result stays only while it is of the data now given.
+    const current = this.analysis !== null && this.shownInput === this.input;
+    if (!current) this.hideResult();
     if (setting !== undefined) {
-      const shown = this.analysis !== null && !this.el.result.hidden;
-      const words = inLabelWords(form, message);
       showMessage(
         this.el.settingsProblem,
-        shown ? `${words}. The result shown is still the one for the last valid settings.` : words,
+        current
+          ? `${words}. The result shown is still the one for the last valid settings.`
+          : words,
       );
       markInvalid(form, setting, this.el.settingsProblem);
-      this.announce(words);
       return;
     }
+    this.hideResult();
+    showMessage(this.el.problem, words);
+  }
+
+  /** Takes the result (and a ranking of other data) off the screen. */
+  private hideResult(): void {
     this.analysis = null;
     this.el.result.hidden = true;
-    showMessage(this.el.problem, inLabelWords(form, message));
-    this.announce(inLabelWords(form, message));
+    if (this.ranking?.input !== this.input || this.renderedList !== this.ranking?.list) {
+      this.el.batchPanel.hidden = true;
+      this.table.clear();
+      this.renderedList = null;
+    }
+    this.el.verdictStatus.textContent = "";
     this.onShown(null);
   }
 

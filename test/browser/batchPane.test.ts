@@ -295,6 +295,25 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(problems).toEqual([]);
   });
 
+  it("does not keep a result of other data when new data refuse the settings", async () => {
+    await page.fill("#set-max-lag", "40");
+    await page.dispatchEvent("#set-max-lag", "change");
+    await expect.poll(() => page.textContent("#chart-description"), WAIT).toContain("40");
+    await openDataPanel(page);
+    const thirty = Array.from(analystResiduals().slice(0, 30), String).join("\n");
+    await page.fill("#paste-box", thirty);
+    await page.click("#paste-read");
+    await expect.poll(() => page.isVisible("#result"), WAIT).toBe(false);
+    const message = (await page.textContent("#settings-problem")) ?? "";
+    expect(message).toMatch(/^Max lag must be a whole number from 1 to 29/);
+    expect(message).not.toContain("still");
+    expect(await page.getAttribute("#set-max-lag", "aria-invalid")).toBe("true");
+    await page.fill("#set-max-lag", "");
+    await page.dispatchEvent("#set-max-lag", "change");
+    await expect.poll(() => page.textContent("#series-meta"), WAIT).toContain("n = 30");
+    expect(await page.isVisible("#result")).toBe(true);
+  });
+
   it("goes from a fresh page to an item and an export with the keyboard alone", async () => {
     await page.goto(`${server.origin}/taskpane.html`);
     await page.locator("#data-panel").waitFor({ state: "visible" });
