@@ -86,6 +86,14 @@ export class RankedTable {
         tag.textContent = "kept";
         name.append(tag);
       }
+      // The figures a narrow pane hides as columns, as a line under the name instead.
+      const secondary = figures.filter(([, , className]) => className.includes("secondary"));
+      if (secondary.length > 0) {
+        const line = document.createElement("span");
+        line.className = "narrow-figures";
+        line.textContent = secondary.map(([title, value]) => `${title} ${value(item)}`).join(" · ");
+        name.append(line);
+      }
       row.append(name);
       for (const [, value, className] of figures) row.append(cell("td", value(item), className));
       const verdict = cell("td", verdictCellText(item.word), "verdict");

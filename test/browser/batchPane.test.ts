@@ -246,6 +246,12 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
         return { scroll: root.scrollWidth, client: root.clientWidth, outside };
       });
     const batch = await measure();
+    // The raw p gives way as a column and shows under the item's name instead.
+    expect(await page.isVisible("#batch tbody tr:first-child td.secondary")).toBe(false);
+    expect(await page.textContent("#batch tbody tr:first-child .narrow-figures")).toMatch(
+      /^p \S+$/,
+    );
+    expect(await page.isVisible("#batch tbody tr:first-child .narrow-figures")).toBe(true);
     expect(batch.scroll).toBeLessThanOrEqual(batch.client);
     expect(batch.outside).toEqual([]);
     await page.evaluate(() => window.scrollTo(0, 0));
