@@ -1,18 +1,21 @@
 /**
  * The ranked list of a batch or an audit of many items, as the pane's table shows it and as
- * "Export ranked list" writes it: one row per item, most telling first, with the item's place in
- * the input (to show it), whether the false-discovery step keeps it, and the figures behind the
- * rank. The order and the kept mark come from one place each (rowsByQValue, keptRow), so the table,
- * the picker and the export always agree.
+ * "Export ranked list" writes it: one row per item in the core's one ranking order
+ * (batchRanking.ts), with the item's place in the input (to show it), its headline
+ * (batchHeadline.ts), whether a false-discovery step keeps a finding of it, and the figures behind
+ * the rank. Table, picker and export all read this list, so they always agree.
  */
 import {
+  rankedAuditItems,
+  rankedRows,
   formatP,
   type AuditBatch,
+  type AuditBatchItem,
   type BatchCheck,
   type BatchRow,
+  type Headline,
   type VerdictWord,
 } from "../core";
-import { rowsByQValue } from "./batchOrder";
 import { BADGES } from "./verdictBadge";
 
 export interface RankedItem {
@@ -22,17 +25,23 @@ export interface RankedItem {
   readonly index: number;
   readonly label: string;
   readonly n: number;
-  /** The p-value the rank rests on, and its Benjamini–Hochberg q-value (NaN: not analysed). */
+  /** The p-value of the lag (or dependence) finding and its Benjamini–Hochberg q-value. */
   readonly p: number;
   readonly qValue: number;
-  /** Bias test p and q-value (audit only; NaN otherwise). */
+  /** The bias check's p and q-value (NaN when it could not run). */
   readonly biasP: number;
   readonly biasQValue: number;
-  /** Kept after the false-discovery step (q-value at most alpha). */
+  /** Engle's LM p of the volatility check (NaN in an audit, or when it could not run). */
+  readonly volatilityP: number;
+  /** The false-discovery step keeps the lag structure, the bias, or both. */
+  readonly keptLags: boolean;
+  readonly keptBias: boolean;
+  /** Either of the two: the item is above the cut-off line. */
   readonly kept: boolean;
-  /** The item's verdict word, or null when it could not be analysed. */
+  /** The headline's word and title ("clear, biased"); null when the item was not analysed. */
   readonly word: VerdictWord | null;
-  /** The verdict's reason, or why the item could not be analysed. */
+  readonly title: string;
+  /** The headline's finding, or why the item could not be analysed. */
   readonly reason: string;
 }
 
@@ -40,60 +49,57 @@ export interface RankedList {
   readonly kind: "batch" | "audit";
   readonly alpha: number;
   readonly items: readonly RankedItem[];
-  /** How many items the false-discovery step keeps (they come first). */
+  /** How many items a false-discovery step keeps (they come first). */
   readonly keptCount: number;
 }
 
-/** Kept after the false-discovery step: q-value at most alpha. */
-function keptRow(qValue: number, alpha: number): boolean {
-  return qValue <= alpha;
+function headlineParts(headline: Headline | null, why: string) {
+  return {
+    word: headline?.word ?? null,
+    title: headline?.title ?? "not analysed",
+    reason: headline?.finding ?? why,
+  };
 }
 
 export function rankedBatch(batch: BatchCheck): RankedList {
   const place = new Map<BatchRow, number>(batch.rows.map((row, index) => [row, index]));
-  const items = rowsByQValue(batch).map((row, i) => ({
-    rank: i + 1,
-    index: place.get(row) as number,
-    label: row.label,
-    n: row.n,
-    p: row.p,
-    qValue: row.qValue,
-    biasP: NaN,
-    biasQValue: NaN,
-    kept: keptRow(row.qValue, batch.alpha),
-    word: row.verdict,
-    reason: row.reason,
-  }));
+  const items = rankedRows(batch).map((row, i) => {
+    const keptBias = row.headline?.biased === true;
+    return {
+      rank: i + 1,
+      index: place.get(row) as number,
+      label: row.label,
+      n: row.n,
+      p: row.p,
+      qValue: row.qValue,
+      biasP: row.biasP,
+      biasQValue: row.biasQValue,
+      volatilityP: row.volatilityP,
+      keptLags: row.kept,
+      keptBias,
+      kept: row.kept || keptBias,
+      ...headlineParts(row.headline, row.reason),
+    };
+  });
   return listOf("batch", batch.alpha, items);
 }
 
-/**
- * An audit's items ranked by the smaller of their two q-values (dependence, bias), ties by the
- * smaller p, items that could not be audited last; kept when either q-value is at most alpha.
- */
 export function rankedAudit(audit: AuditBatch): RankedList {
-  const finite = (x: number) => (Number.isNaN(x) ? Infinity : x);
-  const rows = audit.items.map((item, index) => {
-    const p = item.audit?.levels.jointP.p ?? NaN;
-    const biasP = item.audit?.bias.p ?? NaN;
-    const qValue = item.dependenceQValue;
-    const key = Math.min(finite(qValue), finite(item.biasQValue));
-    const tie = Math.min(finite(p), finite(biasP));
-    return { item, index, p, biasP, qValue, key, tie };
-  });
-  rows.sort((a, b) => a.key - b.key || a.tie - b.tie || a.index - b.index);
-  const items = rows.map((r, i) => ({
+  const place = new Map<AuditBatchItem, number>(audit.items.map((item, index) => [item, index]));
+  const items = rankedAuditItems(audit).map((item, i) => ({
     rank: i + 1,
-    index: r.index,
-    label: r.item.label,
-    n: r.item.audit?.n ?? 0,
-    p: r.p,
-    qValue: r.qValue,
-    biasP: r.biasP,
-    biasQValue: r.item.biasQValue,
-    kept: keptRow(r.qValue, audit.alpha) || keptRow(r.item.biasQValue, audit.alpha),
-    word: r.item.audit?.verdict.word ?? null,
-    reason: r.item.audit?.verdict.reason ?? r.item.problem,
+    index: place.get(item) as number,
+    label: item.label,
+    n: item.audit?.n ?? 0,
+    p: item.audit?.levels.jointP.p ?? NaN,
+    qValue: item.dependenceQValue,
+    biasP: item.audit?.bias.p ?? NaN,
+    biasQValue: item.biasQValue,
+    volatilityP: NaN,
+    keptLags: item.kept,
+    keptBias: item.biased,
+    kept: item.kept || item.biased,
+    ...headlineParts(item.headline, item.problem),
   }));
   return listOf("audit", audit.alpha, items);
 }
@@ -102,9 +108,16 @@ function listOf(kind: RankedList["kind"], alpha: number, items: RankedItem[]): R
   return { kind, alpha, items, keptCount: items.filter((item) => item.kept).length };
 }
 
-/** A verdict as the table shows it: shape and word, never colour alone. */
-export function verdictCellText(word: VerdictWord | null): string {
-  return word === null ? "not analysed" : `${BADGES[word].shape} ${word}`;
+/** What the false-discovery steps keep of an item, in a word or two ("" when nothing). */
+export function keptWords(item: RankedItem): string {
+  if (item.keptLags && item.keptBias) return "kept: lags, bias";
+  if (item.keptLags) return "kept";
+  return item.keptBias ? "kept: bias" : "";
+}
+
+/** A headline as the table shows it: shape and title, never colour alone. */
+export function verdictCellText(item: { word: VerdictWord | null; title: string }): string {
+  return item.word === null ? item.title : `${BADGES[item.word].shape}\u00a0${item.title}`;
 }
 
 /** A p- or q-value as the table shows it ("—" when there is none). */
@@ -121,10 +134,12 @@ export function rankedListGrid(list: RankedList): (string | number)[][] {
     "n",
     audit ? "dependence p" : "p",
     audit ? "dependence q-value" : "q-value",
-    ...(audit ? ["bias p", "bias q-value"] : []),
+    "bias p",
+    "bias q-value",
+    ...(audit ? [] : ["volatility p"]),
     `kept (q-value at most ${list.alpha})`,
     "verdict",
-    "reason",
+    "finding",
   ];
   const number = (x: number) => (Number.isNaN(x) ? "" : x);
   const rows = list.items.map((item) => [
@@ -133,9 +148,15 @@ export function rankedListGrid(list: RankedList): (string | number)[][] {
     item.n,
     number(item.p),
     number(item.qValue),
-    ...(audit ? [number(item.biasP), number(item.biasQValue)] : []),
-    item.kept ? "yes" : "no",
-    item.word ?? "not analysed",
+    number(item.biasP),
+    number(item.biasQValue),
+    ...(audit ? [] : [number(item.volatilityP)]),
+    keptWords(item) === ""
+      ? "no"
+      : keptWords(item)
+          .replace(/^kept: /, "")
+          .replace(/^kept$/, "lags"),
+    item.title,
     item.reason,
   ]);
   return [header, ...rows];

@@ -10,6 +10,7 @@ import {
   type AuditBatch,
   type LagOptions,
   type Series,
+  type VerdictWord,
 } from "../../src/core";
 import {
   rankedAudit,
@@ -18,8 +19,11 @@ import {
   seriesReport,
   seriesReportHtml,
   summaryText,
+  badgeHtml,
+  keptWords,
   verdictCellText,
   type ChartView,
+  type RankedItem,
   type RankedList,
   type SeriesReport,
 } from "../../src/report";
@@ -246,19 +250,33 @@ export class PaneController {
     return ranking;
   }
 
-  /** The verdict said in the live region: the item, its word, its rank among many. */
+  /** The shown item's row of the ranked list, when there is one. */
+  private rankedItem(): RankedItem | undefined {
+    return this.ranking?.list.items.find((item) => item.index === this.index);
+  }
+
+  /**
+   * The headline shown and said: among many items the ranked list's (its word obeys the
+   * false-discovery step), for one series its own.
+   */
+  private headlineShown(): { word: VerdictWord | null; title: string } | null {
+    const item = this.rankedItem();
+    if (item !== undefined) return item;
+    return this.analysis?.headline ?? null;
+  }
+
+  /** The verdict said in the live region: the item, its headline, its rank among many. */
   private verdictLine(): string {
     const analysis = this.analysis;
-    if (analysis === null) return "";
+    const headline = this.headlineShown();
+    if (analysis === null || headline === null) return "";
     const label = analysis.table.label === "" ? "Series" : analysis.table.label;
-    const item = this.ranking?.list.items.find((i) => i.index === this.index);
-    const audit = this.ranking?.audit?.items[this.index]?.audit ?? undefined;
-    const word = audit === undefined ? analysis.table.verdict.word : audit.verdict.word;
-    const check = audit === undefined ? "" : `forecast audit, horizon ${audit.horizon}: `;
+    const item = this.rankedItem();
+    const check = (this.ranking?.audit ?? null) === null ? "" : "forecast audit: ";
     const count = this.ranking?.list.items.length ?? 1;
     const rank = item === undefined || count < 2 ? "" : `, ranked ${item.rank} of ${count}`;
-    const kept = item?.kept === true ? ", kept after the false-discovery step" : "";
-    return `${label}: ${check}${verdictCellText(word)}${rank}${kept}.`;
+    const kept = item?.kept === true ? `, ${keptWords(item)} after the false-discovery step` : "";
+    return `${label}: ${check}${verdictCellText(headline)}${rank}${kept}.`;
   }
 
   /**
@@ -279,7 +297,12 @@ export class PaneController {
     if (input === null || analysis === null) return;
     renderAnalysis(this.el, analysis, this.view, this.sourceText(input));
     showMessage(this.el.readingNote, input.reading ?? null);
-    showMessage(this.el.auditLine, this.auditLine());
+    const headline = this.headlineShown();
+    const word = headline?.word ?? null;
+    if (headline !== null && word !== null) {
+      this.el.badge.innerHTML = badgeHtml(word, headline.title);
+    }
+    showMessage(this.el.auditLine, this.rankLine());
     const tooLarge = input.tooLargeForFunctions === true;
     showMessage(
       this.el.sizeNote,
@@ -290,13 +313,17 @@ export class PaneController {
     this.onShown(this.shown);
   }
 
-  /** The shown item's forecast audit in one line (audit mode only). */
-  private auditLine(): string | null {
-    const item = this.ranking?.audit?.items[this.index];
-    if (item === undefined) return null;
-    const audit = item.audit;
-    if (audit === null) return `Forecast audit: not audited: ${item.problem}`;
-    return `Forecast audit, horizon ${audit.horizon}: ${verdictCellText(audit.verdict.word)}. ${audit.verdict.reason}`;
+  /**
+   * Why the item has its headline among many, in one line under the badge: its rank and the
+   * finding under the false-discovery step (the explanation below reads the series on its own).
+   */
+  private rankLine(): string | null {
+    const item = this.rankedItem();
+    const list = this.ranking?.list;
+    if (item === undefined || list === undefined) return null;
+    const audit = this.ranking?.audit?.items[item.index]?.audit ?? null;
+    const check = audit === null ? "" : `Forecast audit, horizon ${audit.horizon}: `;
+    return `${check}ranked ${item.rank} of ${list.items.length}. ${item.reason}`;
   }
 
   private sourceText(input: PaneInput): string {
@@ -322,7 +349,7 @@ export class PaneController {
       ...list.items.map((item) => {
         const option = document.createElement("option");
         option.value = String(item.index);
-        option.textContent = `${item.rank}. ${item.label} (${verdictCellText(item.word)})`;
+        option.textContent = `${item.rank}. ${item.label} (${verdictCellText(item)})`;
         return option;
       }),
     );

@@ -6,7 +6,13 @@
  * Text goes in as text (textContent), never as markup. Order, kept mark and figures come from
  * src/report/rankedList.ts.
  */
-import { rankedPText, verdictCellText, type RankedItem, type RankedList } from "../../src/report";
+import {
+  keptWords,
+  rankedPText,
+  verdictCellText,
+  type RankedItem,
+  type RankedList,
+} from "../../src/report";
 
 function cell(tag: "td" | "th", text: string, className?: string): HTMLTableCellElement {
   const element = document.createElement(tag);
@@ -15,7 +21,10 @@ function cell(tag: "td" | "th", text: string, className?: string): HTMLTableCell
   return element;
 }
 
-/** The figure columns: title, value, and its class ("secondary" ones give way in a narrow pane). */
+/**
+ * The figure columns: title, value, and class. A "fold-360" or "fold-330" column gives way in a
+ * pane at most that wide and shows as a line under the item's name instead.
+ */
 function columns(list: RankedList): readonly [string, (item: RankedItem) => string, string][] {
   return list.kind === "audit"
     ? [
@@ -23,8 +32,10 @@ function columns(list: RankedList): readonly [string, (item: RankedItem) => stri
         ["q, bias", (item) => rankedPText(item.biasQValue), "figure"],
       ]
     : [
-        ["p", (item) => rankedPText(item.p), "figure secondary"],
+        ["p", (item) => rankedPText(item.p), "figure fold-360"],
         ["q-value", (item) => rankedPText(item.qValue), "figure"],
+        ["bias q", (item) => rankedPText(item.biasQValue), "figure"],
+        ["volatility p", (item) => rankedPText(item.volatilityP), "figure fold-330"],
       ];
 }
 
@@ -83,20 +94,21 @@ export class RankedTable {
       if (item.kept) {
         const tag = document.createElement("span");
         tag.className = "kept-tag";
-        tag.textContent = "kept";
+        tag.textContent = keptWords(item);
         name.append(tag);
       }
-      // The figures a narrow pane hides as columns, as a line under the name instead.
-      const secondary = figures.filter(([, , className]) => className.includes("secondary"));
-      if (secondary.length > 0) {
+      // The figures a narrow pane folds away as columns, as a line under the name instead.
+      for (const [title, value, className] of figures) {
+        const fold = /fold-\d+/.exec(className)?.[0];
+        if (fold === undefined) continue;
         const line = document.createElement("span");
-        line.className = "narrow-figures";
-        line.textContent = secondary.map(([title, value]) => `${title} ${value(item)}`).join(" · ");
+        line.className = `folded ${fold}`;
+        line.textContent = `${title} ${value(item)}`;
         name.append(line);
       }
       row.append(name);
       for (const [, value, className] of figures) row.append(cell("td", value(item), className));
-      const verdict = cell("td", verdictCellText(item.word), "verdict");
+      const verdict = cell("td", verdictCellText(item), "verdict");
       if (item.word !== null) verdict.dataset.word = item.word;
       row.append(verdict);
       this.buttons.push(button);

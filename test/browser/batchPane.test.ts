@@ -68,16 +68,19 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(labels).toHaveLength(150);
     const first = labels[0] as string;
     expect(await page.textContent("#series-label")).toBe(first);
-    // The seeded file's most telling item is one with real leftover structure, not noise.
-    expect(["ar1", "cycle"]).toContain(kindOf.get(first));
+    // The seeded file's most telling item has a real finding (lags or bias), not sound errors.
+    expect(kindOf.get(first)).not.toBe("sound");
     expect(
       await page.getAttribute("#batch tbody tr:first-child .item-button", "aria-current"),
     ).toBe("true");
-    // q-values ascend down the table (the rank's key).
-    const q = (
-      await page.locator("#batch tbody tr:not(.cutoff) td:nth-child(4)").allTextContents()
-    ).map(Number);
-    expect(q.every((v, i) => i === 0 || v >= (q[i - 1] as number))).toBe(true);
+    // The order agrees with the words: kept rows first, then watch, then clear, then short.
+    const words = await page
+      .locator("#batch tbody tr:not(.cutoff):not(.kept) td.verdict")
+      .evaluateAll((tds) => tds.map((td) => (td as HTMLElement).dataset.word ?? ""));
+    const groups = words.map((w) => ["watch", "clear", "short", ""].indexOf(w));
+    expect(groups.every((g, i) => g >= 0 && (i === 0 || g >= (groups[i - 1] as number)))).toBe(
+      true,
+    );
     // The data panel folded to one line; settings, then the table, within the first screen.
     expect(
       await page.evaluate(() => (document.getElementById("data-panel") as HTMLDetailsElement).open),
@@ -88,9 +91,17 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(settingsTop).toBeLessThan(tableTop);
     expect(tableTop).toBeLessThan(600);
     // The picker lists the items in the table's order.
-    const picked = await page.locator("#column-pick option").allTextContents();
-    expect(picked.map((t) => t.replace(/^\d+\. /, "").replace(/ \([^)]*\)$/, ""))).toEqual(labels);
-    await expect.poll(status, WAIT).toMatch(new RegExp(`^${first}: . \\w+, ranked 1 of 150`));
+    const picked = await page
+      .locator("#column-pick option")
+      .evaluateAll((options) => options.map((o) => (o as HTMLOptionElement).value));
+    const rowIndices = await page
+      .locator("#batch tbody tr:not(.cutoff) .item-button")
+      .evaluateAll((buttons) => buttons.map((b) => (b as HTMLElement).dataset.index));
+    expect(picked).toEqual(rowIndices);
+    expect(await page.locator("#column-pick option").first().textContent()).toMatch(
+      new RegExp(`^1\\. ${first} \\(`),
+    );
+    await expect.poll(status, WAIT).toMatch(new RegExp(`^${first}: .\\s\\w+.*, ranked 1 of 150`));
     await page.screenshot({ path: join(OUTPUT, "pane-planner-150.png") });
   });
 
@@ -105,8 +116,24 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(classes.slice(0, kept).every((c) => c === "kept")).toBe(true);
     expect(classes[kept]).toBe("cutoff");
     expect(classes.slice(kept + 1).every((c) => c !== "kept" && c !== "cutoff")).toBe(true);
-    const q = await page.locator("#batch tbody tr.kept td:nth-child(4)").allTextContents();
-    expect(q.every((t) => Number(t) <= 0.05)).toBe(true);
+    // A kept row's q-value, or its bias q-value, is at most alpha; the tag says which.
+    const keptRows = await page.locator("#batch tbody tr.kept").evaluateAll((trs) =>
+      trs.map((tr) => ({
+        label: tr.querySelector(".item-button")?.textContent ?? "",
+        q: Number(tr.querySelector("td:nth-child(4)")?.textContent),
+        biasQ: Number(tr.querySelector("td:nth-child(5)")?.textContent),
+        tag: tr.querySelector(".kept-tag")?.textContent ?? "",
+      })),
+    );
+    for (const row of keptRows) {
+      expect(row.q <= 0.05 || row.biasQ <= 0.05, JSON.stringify(row)).toBe(true);
+      expect(row.tag.includes("bias"), JSON.stringify(row)).toBe(row.biasQ <= 0.05);
+    }
+    // The five items that run high (mean 6.4, sd 10, 104 weeks: t near 6.5) are kept for bias.
+    const biased = items.filter((item) => item.kind === "biased").map((item) => item.label);
+    for (const label of biased) {
+      expect(keptRows.find((row) => row.label === label)?.tag, label).toMatch(/bias/);
+    }
     const look = (selector: string) =>
       page.evaluate((s) => {
         const row = document.querySelector(s) as HTMLElement;
@@ -177,7 +204,9 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     const text = readFileSync(await download.path(), "utf8");
     const lines = text.trimEnd().split("\r\n");
     expect(lines).toHaveLength(151);
-    expect(lines[0]).toBe("rank,item,n,p,q-value,kept (q-value at most 0.05),verdict,reason");
+    expect(lines[0]).toBe(
+      "rank,item,n,p,q-value,bias p,bias q-value,volatility p,kept (q-value at most 0.05),verdict,finding",
+    );
     const exported = lines.slice(1).map((line) => line.split(",")[1]);
     expect(exported).toEqual(labels);
     expect(lines[1]?.startsWith(`1,${labels[0]},104,`)).toBe(true);
@@ -193,12 +222,12 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     expect(head).toEqual(["#", "item", "q, lags", "q, bias", "verdict"]);
     const kept = await page.locator("#batch tbody tr.kept .item-button").allTextContents();
     const biased = items.filter((item) => item.kind === "biased").map((item) => item.label);
-    // Bias of 0.8 σ over 104 weeks: t about 8, far beyond any false-discovery threshold.
+    // Mean 6.4 with sd 10 over 104 weeks: t near 6.5, far beyond any false-discovery threshold.
     for (const label of biased) expect(kept).toContain(label);
     await expect
       .poll(() => page.textContent("#audit-line"), WAIT)
       .toMatch(/^Forecast audit, horizon 1: /);
-    await expect.poll(status, WAIT).toMatch(/forecast audit, horizon 1: /);
+    await expect.poll(status, WAIT).toMatch(/: forecast audit: .\s\w+/);
     // A refused horizon is marked at its field, in the label's words; the result stays.
     await page.fill("#set-horizon", "0");
     await page.dispatchEvent("#set-horizon", "change");
@@ -246,12 +275,16 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
         return { scroll: root.scrollWidth, client: root.clientWidth, outside };
       });
     const batch = await measure();
-    // The raw p gives way as a column and shows under the item's name instead.
-    expect(await page.isVisible("#batch tbody tr:first-child td.secondary")).toBe(false);
-    expect(await page.textContent("#batch tbody tr:first-child .narrow-figures")).toMatch(
-      /^p \S+$/,
-    );
-    expect(await page.isVisible("#batch tbody tr:first-child .narrow-figures")).toBe(true);
+    // The raw p and the volatility p give way as columns and show under the item's name instead;
+    // the q-value and the bias q stay columns.
+    const first = "#batch tbody tr:first-child";
+    expect(await page.isVisible(`${first} td.fold-360`)).toBe(false);
+    expect(await page.isVisible(`${first} td.fold-330`)).toBe(false);
+    expect(await page.textContent(`${first} .folded.fold-360`)).toMatch(/^p \S+$/);
+    expect(await page.textContent(`${first} .folded.fold-330`)).toMatch(/^volatility p \S+$/);
+    expect(await page.isVisible(`${first} .folded.fold-330`)).toBe(true);
+    const heads = await page.locator("#batch thead th:visible").allTextContents();
+    expect(heads).toEqual(["#", "item", "q-value", "bias q", "verdict"]);
     expect(batch.scroll).toBeLessThanOrEqual(batch.client);
     expect(batch.outside).toEqual([]);
     await page.evaluate(() => window.scrollTo(0, 0));
@@ -273,7 +306,7 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     await page.click("#paste-read");
     await expect.poll(() => page.textContent("#series-meta"), WAIT).toContain("n = 500");
     const pointFigures = await page.textContent("#figures");
-    await expect.poll(status, WAIT).toMatch(/^Series: . \w+\.$/);
+    await expect.poll(status, WAIT).toMatch(/^Series: .\s.+\.$/);
     const pointStatus = await status();
     const comma = residuals.map((r) => String(r).replace(".", ",")).join("\n");
     await openDataPanel(page);

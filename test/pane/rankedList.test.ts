@@ -5,7 +5,13 @@
  */
 import { describe, expect, it } from "vitest";
 import { auditBatch, batchCheck, seriesFromValues, type Series } from "../../src/core";
-import { rankedAudit, rankedBatch, rankedListCsv, rankedListGrid } from "../../src/report";
+import {
+  keptWords,
+  rankedAudit,
+  rankedBatch,
+  rankedListCsv,
+  rankedListGrid,
+} from "../../src/report";
 import { ar1, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
 import { placeRankedList } from "../../taskpane/host/placeRankedList";
@@ -28,19 +34,31 @@ function items(): Series[] {
 }
 
 describe("rankedBatch(batch)", () => {
-  it("ranks by ascending q-value, keeps the items at or below alpha, and remembers each place", () => {
+  it("lists kept findings first, marks what each step keeps, and remembers each place", () => {
     const batch = batchCheck(items(), {});
     const list = rankedBatch(batch);
     expect(list.items.map((item) => item.rank)).toEqual([1, 2, 3, 4, 5]);
-    const q = list.items.map((item) => item.qValue);
-    expect(q.every((v, i) => i === 0 || v >= (q[i - 1] as number))).toBe(true);
-    expect(list.items[0]!.label).toBe("strong");
-    expect(list.items[0]!.index).toBe(2);
+    // The strong lag-1 item and the one running high are the two kept, in either order.
+    expect(list.keptCount).toBe(2);
+    expect(
+      list.items
+        .slice(0, 2)
+        .map((item) => item.label)
+        .sort(),
+    ).toEqual(["biased", "strong"]);
+    const strong = list.items.find((item) => item.label === "strong")!;
+    const biased = list.items.find((item) => item.label === "biased")!;
+    expect(strong.keptLags).toBe(true);
+    expect(biased.keptBias).toBe(true);
+    expect(keptWords(strong)).toBe(strong.keptBias ? "kept: lags, bias" : "kept");
+    expect(keptWords(biased)).toMatch(/bias$/);
+    expect(biased.title).toMatch(/, biased$/);
     for (const item of list.items) {
-      expect(item.kept).toBe(item.qValue <= batch.alpha);
-      expect(batch.rows[item.index]!.label).toBe(item.label);
+      const row = batch.rows[item.index]!;
+      expect(row.label).toBe(item.label);
+      expect(item.kept).toBe(row.kept || row.headline?.biased === true);
+      expect(item.reason).toBe(row.headline?.finding);
     }
-    expect(list.keptCount).toBe(list.items.filter((item) => item.kept).length);
   });
 });
 
@@ -64,15 +82,18 @@ describe("rankedListCsv(list)", () => {
   it("writes a header and one line per item, quoting as RFC 4180 and defusing formulas", () => {
     const list = rankedBatch(batchCheck(items(), {}));
     const lines = rankedListCsv(list).split("\r\n");
-    expect(lines[0]).toBe("rank,item,n,p,q-value,kept (q-value at most 0.05),verdict,reason");
+    expect(lines[0]).toBe(
+      "rank,item,n,p,q-value,bias p,bias q-value,volatility p,kept (q-value at most 0.05),verdict,finding",
+    );
     expect(lines).toHaveLength(7);
     expect(lines[6]).toBe("");
     const sneaky = lines.find((line) => line.includes("sneaky"))!;
     // OWASP, "CSV Injection": a leading apostrophe keeps "=…" text from running as a formula.
     expect(sneaky).toMatch(/^\d,"'=sneaky, ""quoted""",120,/);
-    const strong = lines[1]!.split(",");
-    expect(strong.slice(0, 3)).toEqual(["1", "strong", "120"]);
-    expect(Number(strong[3])).toBe(list.items[0]!.p);
+    const first = lines[1]!.split(",");
+    expect(first.slice(0, 3)).toEqual(["1", list.items[0]!.label, "120"]);
+    expect(Number(first[3])).toBe(list.items[0]!.p);
+    expect(Number(first[5])).toBe(list.items[0]!.biasP);
   });
 });
 
@@ -84,9 +105,9 @@ describe("placeRankedList(run, grid)", () => {
     const grid = rankedListGrid(list);
     const name = await placeRankedList(host.run, grid);
     expect(name).toBe("Echolot ranked");
-    const placed = host.sheet("Echolot ranked").grid("A1:H6");
+    const placed = host.sheet("Echolot ranked").grid("A1:K6");
     expect(placed.values[0]).toEqual(grid[0]);
-    expect(placed.values[1]?.[1]).toBe("strong");
+    expect(placed.values[1]?.[1]).toBe(list.items[0]!.label);
     expect(placed.values.map((row) => row[1])).toContain('\'=sneaky, "quoted"');
     expect(host.selection).toEqual({ sheet: "Data", range: "A1" });
     expect(await placeRankedList(host.run, grid)).toBe("Echolot ranked (2)");
