@@ -12,6 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   builtPane,
   launchChromium,
+  wordsInRankedOrder,
   openDataPanel,
   ROOT,
   servePane,
@@ -74,13 +75,7 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
       await page.getAttribute("#batch tbody tr:first-child .item-button", "aria-current"),
     ).toBe("true");
     // The order agrees with the words: kept rows first, then watch, then clear, then short.
-    const words = await page
-      .locator("#batch tbody tr:not(.cutoff):not(.kept) td.verdict")
-      .evaluateAll((tds) => tds.map((td) => (td as HTMLElement).dataset.word ?? ""));
-    const groups = words.map((w) => ["watch", "clear", "short", ""].indexOf(w));
-    expect(groups.every((g, i) => g >= 0 && (i === 0 || g >= (groups[i - 1] as number)))).toBe(
-      true,
-    );
+    expect(await wordsInRankedOrder(page)).toBe(true);
     // The data panel folded to one line; settings, then the table, within the first screen.
     expect(
       await page.evaluate(() => (document.getElementById("data-panel") as HTMLDetailsElement).open),
@@ -306,8 +301,14 @@ describe("the pane with the planner's 150 items and the analyst's residuals", ()
     await page.click("#paste-read");
     await expect.poll(() => page.textContent("#series-meta"), WAIT).toContain("n = 500");
     const pointFigures = await page.textContent("#figures");
-    await expect.poll(status, WAIT).toMatch(/^Series: .\s.+\.$/);
+    // Volatility clusters, so the headline is the robust reading, and the chart's caption says
+    // which bands and which joint test it draws.
+    await expect.poll(status, WAIT).toMatch(/^Series: .\s\w+ \(robust reading\)\.$/);
     const pointStatus = await status();
+    expect(await page.textContent("#verdict-badge")).toContain("(robust reading)");
+    const caption = (await page.locator("#chart svg").textContent()) ?? "";
+    expect(caption).toContain("robust bands");
+    expect(caption).toContain("robust Q*");
     const comma = residuals.map((r) => String(r).replace(".", ",")).join("\n");
     await openDataPanel(page);
     await page.fill("#paste-box", comma);

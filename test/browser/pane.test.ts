@@ -14,6 +14,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   builtPane,
   launchChromium,
+  wordsInRankedOrder,
   openDataPanel,
   recordViolations,
   violations,
@@ -155,13 +156,7 @@ describe("the built pane in a browser, standalone", () => {
     await expect.poll(() => page.locator("#batch table tbody tr:not(.cutoff)").count()).toBe(24);
     expect(await page.inputValue("#set-season")).toBe("13");
     // The order agrees with the words: kept rows first, then watch, then clear, then short.
-    const words = await page
-      .locator("#batch tbody tr:not(.cutoff):not(.kept) td.verdict")
-      .evaluateAll((tds) => tds.map((td) => (td as HTMLElement).dataset.word ?? ""));
-    const groups = words.map((w) => ["watch", "clear", "short", ""].indexOf(w));
-    expect(groups.every((g, i) => g >= 0 && (i === 0 || g >= (groups[i - 1] as number)))).toBe(
-      true,
-    );
+    expect(await wordsInRankedOrder(page)).toBe(true);
     const copper = page.locator("#column-pick option", { hasText: "Copper Kettle" });
     await page.selectOption("#column-pick", (await copper.getAttribute("value")) ?? "");
     await expect.poll(() => page.textContent("#series-label")).toBe("Copper Kettle");

@@ -11,6 +11,7 @@ import {
   rankedBatch,
   rankedListCsv,
   rankedListGrid,
+  type RankedList,
 } from "../../src/report";
 import { ar1, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
@@ -33,6 +34,14 @@ function items(): Series[] {
   ];
 }
 
+/** The labels of the first two ranked items, in alphabetical order. */
+function firstTwo(list: RankedList): string[] {
+  return list.items
+    .slice(0, 2)
+    .map((item) => item.label)
+    .sort();
+}
+
 describe("rankedBatch(batch)", () => {
   it("lists kept findings first, marks what each step keeps, and remembers each place", () => {
     const batch = batchCheck(items(), {});
@@ -40,12 +49,7 @@ describe("rankedBatch(batch)", () => {
     expect(list.items.map((item) => item.rank)).toEqual([1, 2, 3, 4, 5]);
     // The strong lag-1 item and the one running high are the two kept, in either order.
     expect(list.keptCount).toBe(2);
-    expect(
-      list.items
-        .slice(0, 2)
-        .map((item) => item.label)
-        .sort(),
-    ).toEqual(["biased", "strong"]);
+    expect(firstTwo(list)).toEqual(["biased", "strong"]);
     const strong = list.items.find((item) => item.label === "strong")!;
     const biased = list.items.find((item) => item.label === "biased")!;
     expect(strong.keptLags).toBe(true);
@@ -66,12 +70,7 @@ describe("rankedAudit(audit)", () => {
   it("ranks the strong and the biased item first and keeps both", () => {
     const list = rankedAudit(auditBatch(items(), { horizon: 1 }));
     expect(list.kind).toBe("audit");
-    expect(
-      list.items
-        .slice(0, 2)
-        .map((item) => item.label)
-        .sort(),
-    ).toEqual(["biased", "strong"]);
+    expect(firstTwo(list)).toEqual(["biased", "strong"]);
     expect(list.items.slice(0, 2).every((item) => item.kept)).toBe(true);
     const biased = list.items.find((item) => item.label === "biased")!;
     expect(biased.biasQValue).toBeLessThanOrEqual(0.05);
