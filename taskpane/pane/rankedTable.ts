@@ -41,12 +41,12 @@ function columns(list: RankedList): readonly [string, (item: RankedItem) => stri
 
 function captionText(list: RankedList): string {
   const what = list.kind === "audit" ? "audited" : "checked";
-  const key = list.kind === "audit" ? "the smaller of the dependence and bias q-values" : "q-value";
+  const steps = `the false-discovery step keeps lag structure and bias separately (q-value at most ${list.alpha})`;
   const kept =
     list.keptCount === 0
-      ? `none is kept after the false-discovery step (q-value at most ${list.alpha})`
-      : `${list.keptCount} kept after the false-discovery step (q-value at most ${list.alpha}), above the cut-off line`;
-  return `${list.items.length} items ${what}, ranked by ${key}: ${kept}. Choose an item to show it.`;
+      ? "it keeps none"
+      : `${list.keptCount} kept, first and above the cut-off line`;
+  return `${list.items.length} items ${what}; ${steps}: ${kept}; then watch, clear and short. Choose an item to show it.`;
 }
 
 export class RankedTable {
