@@ -12,7 +12,7 @@ import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
 import { releaseBetweenSteps } from "./memory";
-import { lagTableJson, sideChecksJson, toJsonText } from "./json";
+import { JSON_VERSION, lagTableJson, sideChecksJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
   lagOptionsFrom,
@@ -39,6 +39,11 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
   const result = lagTable(series, options);
   const side = sideChecks(series, result, release);
   return values.json === true
-    ? toJsonText({ source, ...lagTableJson(result), ...sideChecksJson(side) })
+    ? toJsonText({
+        version: JSON_VERSION,
+        source,
+        ...lagTableJson(result),
+        ...sideChecksJson(side),
+      })
     : `read: ${source}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
 }

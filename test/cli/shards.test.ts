@@ -83,15 +83,15 @@ describe("batch --format jsonl and fdr", () => {
     expect(viaStdin.stdout).toBe(reference);
   });
 
-  it("lists the merged rows by q-value, ties by id", () => {
+  it("lists the merged rows in the batch's ranked order: q-value, ties by p, then id", () => {
     const result = runCli(["fdr", all, "--format", "jsonl"]);
     const order = result.stdout
       .trim()
       .split("\n")
       .map((l) => JSON.parse(l) as { id: string; qValue: number });
     const expected = whole.series
-      .map((s) => ({ id: s.label, qValue: s.qValue as number }))
-      .sort((a, b) => a.qValue - b.qValue || (a.id < b.id ? -1 : 1));
+      .map((s) => ({ id: s.label, qValue: s.qValue as number, p: s.p as number }))
+      .sort((a, b) => a.qValue - b.qValue || a.p - b.p || (a.id < b.id ? -1 : 1));
     expect(order.map((o) => o.id)).toEqual(expected.map((e) => e.id));
   });
 
