@@ -1,0 +1,141 @@
+/**
+ * The pieces of the ranked views: the one ranking rule (rankedBatchRows, rankedAuditItems), the
+ * CSV cells (RFC 4180 and the formula guard) and prose wrapped to 80 columns.
+ */
+import { parse } from "csv-parse/sync";
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import type { BatchCheck, BatchRow } from "../../src/core";
+import { rankedBatchRows, selectRanked } from "../../src/report/batchOrder";
+import { csvCell, csvText } from "../../src/report/rankedCsv";
+import { wrapText } from "../../src/report/textWrap";
+
+function row(label: string, p: number, qValue: number): BatchRow {
+  return {
+    label,
+    n: 50,
+    q: 1,
+    df: 10,
+    p,
+    reference: Number.isNaN(p) ? null : "permutation",
+    draws: 999,
+    pBound: false,
+    qValue,
+    qValueBound: false,
+    verdict: Number.isNaN(p) ? null : "clear",
+    reason: "",
+  };
+}
+
+function batch(rows: BatchRow[]): BatchCheck {
+  return { alpha: 0.05, rows, flaggedRaw: 0, flaggedFdr: 0, analysed: rows.length };
+}
+
+describe("rankedBatchRows(batch)", () => {
+  it("ranks by q-value, breaks ties in q by p, then by input order; not analysed last", () => {
+    const ranked = rankedBatchRows(
+      batch([
+        row("none", NaN, NaN),
+        row("tie-later-p", 0.02, 0.04),
+        row("alone", 0.3, 0.5),
+        row("tie-first-p", 0.01, 0.04),
+        row("tie-same-p-b", 0.02, 0.04),
+        row("best", 0.001, 0.01),
+      ]),
+    );
+    expect(ranked.map((r) => r.item.label)).toEqual([
+      "best",
+      "tie-first-p",
+      "tie-later-p",
+      "tie-same-p-b",
+      "alone",
+      "none",
+    ]);
+    expect(ranked.map((r) => r.rank)).toEqual([1, 2, 3, 4, 5, 6]);
+    expect(ranked.map((r) => r.kept)).toEqual([true, true, true, true, false, false]);
+    expect(ranked.map((r) => r.index)).toEqual([5, 3, 1, 4, 2, 0]);
+  });
+
+  it("selectRanked keeps the kept rows, then the first N of them", () => {
+    const ranked = rankedBatchRows(
+      batch([row("a", 0.3, 0.5), row("b", 0.001, 0.01), row("c", 0.01, 0.03)]),
+    );
+    const labels = (top: number | null, keptOnly: boolean) =>
+      selectRanked(ranked, { top, keptOnly }).map((r) => r.item.label);
+    expect(labels(null, false)).toEqual(["b", "c", "a"]);
+    expect(labels(2, false)).toEqual(["b", "c"]);
+    expect(labels(null, true)).toEqual(["b", "c"]);
+    expect(labels(1, true)).toEqual(["b"]);
+    expect(labels(10, false)).toEqual(["b", "c", "a"]);
+  });
+});
+
+describe("csvCell(cell) and csvText(header, rows)", () => {
+  it("quotes a field with a comma, a double quote or a line break and doubles its quotes (RFC 4180 section 2, rules 6 and 7)", () => {
+    expect(csvCell("plain")).toBe("plain");
+    expect(csvCell("a,b")).toBe('"a,b"');
+    expect(csvCell('say "hi"')).toBe('"say ""hi"""');
+    expect(csvCell("two\r\nlines")).toBe('"two\r\nlines"');
+    expect(csvCell(null)).toBe("");
+    expect(csvCell(NaN)).toBe("");
+    expect(csvCell(true)).toBe("true");
+  });
+
+  it("guards text that a spreadsheet would read as a formula with a leading apostrophe, and leaves numbers numbers", () => {
+    // The guard against formula injection in exported CSV: common practice (no source).
+    for (const text of ["=SUM(A1:A9)", "+1+1", "-2+3", "@cmd", "\tx", "\rx"]) {
+      expect(csvCell(text).replace(/^"/, "")).toMatch(/^'/);
+    }
+    expect(csvCell("=1,2")).toBe(`"'=1,2"`);
+    expect(csvCell(-0.25)).toBe("-0.25");
+    expect(csvCell(1.5e-9)).toBe("1.5e-9");
+    expect(csvCell("item-7")).toBe("item-7");
+  });
+
+  it("writes CRLF after every record, and csv-parse (a general-purpose reader) gives every cell back", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.string(), fc.double({ noNaN: true, noDefaultInfinity: true })), {
+          maxLength: 20,
+        }),
+        (records) => {
+          const text = csvText(["label", "value"], records);
+          expect(text.endsWith("\r\n")).toBe(true);
+          const back = parse(text, { columns: true, relax_quotes: false }) as {
+            label: string;
+            value: string;
+          }[];
+          expect(back).toHaveLength(records.length);
+          back.forEach((cells, i) => {
+            const [label, value] = records[i] as [string, number];
+            const guarded = /^[=+\-@\t\r]/.test(label) ? `'${label}` : label;
+            expect(cells.label).toBe(guarded);
+            expect(Number(cells.value)).toBe(value === 0 ? 0 : value);
+          });
+        },
+      ),
+    );
+  });
+});
+
+describe("wrapText(text, indent, first)", () => {
+  it("keeps every line within 80 columns and every word, in order", () => {
+    fc.assert(
+      fc.property(fc.array(fc.stringMatching(/^[a-zé–]{1,20}$/), { maxLength: 60 }), (words) => {
+        const lines = wrapText(words.join(" "), "    ");
+        for (const line of lines) expect(Array.from(line).length).toBeLessThanOrEqual(80);
+        expect(
+          lines
+            .join(" ")
+            .split(/ +/)
+            .filter((w) => w !== ""),
+        ).toEqual(words);
+      }),
+    );
+  });
+
+  it("leaves a word longer than the width whole on its own line", () => {
+    const long = "x".repeat(90);
+    expect(wrapText(`short ${long} end`)).toEqual(["short", long, "end"]);
+  });
+});
