@@ -87,10 +87,13 @@ export function selectRanked<T>(
 /** "showing the first 10 of 150 ranked rows", or "" when every row is shown. */
 export function selectionNote(shown: number, total: number, selection: RankedSelection): string {
   if (shown === total) return "";
-  const which = selection.keptOnly
-    ? selection.top !== null && shown === selection.top
-      ? `the first ${shown} kept`
-      : `the ${shown} kept`
-    : `the first ${shown}`;
-  return `showing ${which} of ${total} ranked rows.`;
+  if (shown === 0)
+    return `none of the ${total} ranked rows is kept after the false-discovery step.`;
+  const rows = shown === 1 ? "row" : `${shown}`;
+  if (!selection.keptOnly) return `showing the first ${rows} of ${total} ranked rows.`;
+  const kept =
+    selection.top !== null && shown === selection.top
+      ? `the first ${rows} kept`
+      : `the ${shown} kept`;
+  return `showing ${kept} of ${total} ranked rows.`;
 }

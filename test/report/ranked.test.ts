@@ -7,6 +7,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { BatchCheck, BatchRow } from "../../src/core";
 import { rankedBatchRows, selectRanked } from "../../src/report/batchOrder";
+import { batchText } from "../../src/report/batchText";
 import { csvCell, csvText } from "../../src/report/rankedCsv";
 import { wrapText } from "../../src/report/textWrap";
 
@@ -67,6 +68,28 @@ describe("rankedBatchRows(batch)", () => {
     expect(labels(null, true)).toEqual(["b", "c"]);
     expect(labels(1, true)).toEqual(["b"]);
     expect(labels(10, false)).toEqual(["b", "c", "a"]);
+  });
+});
+
+describe("batchText(batch, context)", () => {
+  const context = { maxLag: null, season: null, testKind: "ljung-box" } as const;
+
+  it("shortens a long name with … to stay within 80 columns, and says where it is whole", () => {
+    const long = "Northern warehouse, slow-moving spare parts, weekly";
+    const text = batchText(batch([row(long, 0.001, 0.002), row("short", 0.5, 0.5)]), context);
+    for (const line of text.split("\n"))
+      expect(Array.from(line).length, line).toBeLessThanOrEqual(80);
+    expect(text).toMatch(/^\s+1 Northern warehouse… +50 /m);
+    expect(text).toMatch(/Long names are shortened with …; --csv and --json give them whole\./);
+  });
+
+  it("says so when --kept leaves no row", () => {
+    const text = batchText(batch([row("a", 0.5, 0.6), row("b", 0.7, 0.7)]), {
+      ...context,
+      selection: { top: null, keptOnly: true },
+    });
+    expect(text).toMatch(/none of the 2 ranked rows is kept after the false-discovery step\./);
+    expect(text).not.toMatch(/^\s+\d+ [ab] /m);
   });
 });
 
