@@ -66,7 +66,7 @@ function groupLabel(text: string, width: number): string {
 function expectedLags(audit: ForecastAudit, horizon: number): string {
   if (horizon === 1) return "";
   const r = audit.rows.filter((row) => !row.counted).map((row) => formatNumber(row.correlation, 2));
-  return ` Lags 1–${horizon - 1}, expected to be non-zero for ${horizon}-step errors and not counted: r = ${r.join(", ")}.`;
+  return ` Lags 1–${horizon - 1} are expected to be non-zero for ${horizon}-step errors and are not counted; their autocorrelations: ${r.join(", ")}.`;
 }
 
 export function auditText(batch: AuditBatch, context: AuditTextContext): string {

@@ -138,7 +138,7 @@ describe("echolot audit", () => {
     expect(result.stdout).toMatch(/^\s+1 yield\s+70 /m);
     const reasons = runCli(["audit", SERIES_F, "--horizon", "3", "--reasons"]);
     expect(reasons.stdout.replace(/\s+/g, " ")).toMatch(
-      /Lags 1–2, expected to be non-zero for 3-step errors and not counted: r = -?0\.\d+, -?0\.\d+\./,
+      /Lags 1–2 are expected to be non-zero for 3-step errors and are not counted; their autocorrelations: -?0\.\d+, -?0\.\d+\./,
     );
     const doc = json<{ series: { firstLag: number; lags: { counted: boolean }[] }[] }>([
       "audit",
