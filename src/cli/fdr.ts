@@ -3,8 +3,8 @@
  * across machines. It merges the parts that `echolot batch --format jsonl` wrote (files, or
  * standard input when none or `-` is given) and applies Benjamini–Hochberg across all of them:
  * the same q-values and verdicts as one whole batch, whatever the split. Rows come out in the
- * batch's ranked order (q-value, ties by p, then id), so the order does not depend on the split
- * either; `--top`, `--kept`, `--csv` and `--out` work as for batch.
+ * batch's ranked order (core/batchRanking.ts; ties by id), so the order does not depend on the
+ * split either; `--top`, `--kept`, `--reasons`, `--csv` and `--out` work as for batch.
  */
 import { createReadStream } from "node:fs";
 import { createInterface } from "node:readline";
@@ -22,6 +22,15 @@ export const FDR_OPTIONS = ["json", "format", ...RANKED_OPTIONS];
 
 const VERDICTS = new Set(["clear", "watch", "structure", "short"]);
 const REFERENCES = new Set(["permutation", "chi-square", "monte-carlo"]);
+const READINGS = new Set(["plain", "robust"]);
+
+/** null, or an object whose named fields are all finite numbers. */
+function figuresOrNull(x: unknown, names: readonly string[]): boolean {
+  if (x === null) return true;
+  if (typeof x !== "object") return false;
+  const o = x as Record<string, unknown>;
+  return names.every((name) => typeof o[name] === "number" && Number.isFinite(o[name]));
+}
 
 function isNumberOrNull(x: unknown): boolean {
   return x === null || (typeof x === "number" && Number.isFinite(x));
@@ -49,11 +58,18 @@ function partLine(text: string, where: string): SeriesResult {
     typeof r.pBound === "boolean" &&
     (r.verdict === null || VERDICTS.has(r.verdict as string)) &&
     typeof r.reason === "string" &&
+    typeof r.finding === "string" &&
+    typeof r.note === "string" &&
+    (r.reading === null || READINGS.has(r.reading as string)) &&
+    typeof r.switched === "boolean" &&
+    (r.plainVerdict === null || VERDICTS.has(r.plainVerdict as string)) &&
+    figuresOrNull(r.volatility, ["lm", "df", "p"]) &&
+    figuresOrNull(r.bias, ["mean", "se", "t", "p"]) &&
     typeof r.alpha === "number" &&
     TEST_KINDS.includes(r.test as never);
   if (!ok) {
     invalid(
-      `${where} lacks a field of echolot batch --format jsonl (id, n, statistic, df, p, reference, draws, pBound, verdict, reason, alpha, test)`,
+      `${where} lacks a field of echolot batch --format jsonl (id, n, statistic, df, p, reference, draws, pBound, verdict, reason, finding, note, reading, switched, plainVerdict, volatility, bias, alpha, test)`,
     );
   }
   return r as unknown as SeriesResult;
@@ -94,6 +110,7 @@ export async function runFdr({ files, values }: ParsedCommand): Promise<string> 
   const results: SeriesResult[] = [];
   for (const part of parts) await readPart(part, results);
   const batch = mergeSeriesResults(results);
+  const orNull = (x: number) => (Number.isNaN(x) ? null : x);
   const shown = selectRanked(rankedBatchRows(batch), selection);
   const said = { source: null, rows: shown.length, total: batch.rows.length };
   if (format === "json")
@@ -105,10 +122,14 @@ export async function runFdr({ files, values }: ParsedCommand): Promise<string> 
         JSON.stringify({
           id: row.label,
           n: row.n,
-          p: Number.isNaN(row.p) ? null : row.p,
-          qValue: Number.isNaN(row.qValue) ? null : row.qValue,
-          verdict: row.verdict,
-          reason: row.reason,
+          p: orNull(row.p),
+          qValue: orNull(row.qValue),
+          kept: row.kept,
+          biasP: orNull(row.biasP),
+          biasQValue: orNull(row.biasQValue),
+          word: row.headline?.word ?? null,
+          title: row.headline?.title ?? null,
+          finding: row.headline?.finding ?? row.reason,
         }),
       )
       .join("\n");

@@ -8,6 +8,7 @@
  */
 import type {
   BandKind,
+  Headline,
   LagTable,
   PReference,
   ReferencedP,
@@ -199,6 +200,17 @@ export function sideChecksJson(side: SideChecks): SideChecksJson {
     normality: field("normality", side.normality, (j) => ({ jb: j.jb, p: j.p })),
   };
   return Object.keys(notComputed).length > 0 ? { ...document, notComputed } : document;
+}
+
+/** The headline of `check --json` (core/headline.ts): the word, how it reads, every finding. */
+export type HeadlineJson = Pick<
+  Headline,
+  "word" | "title" | "reading" | "switched" | "biased" | "volatile" | "findings" | "note"
+>;
+
+export function headlineJson(headline: Headline): HeadlineJson {
+  const { word, title, reading, switched, biased, volatile, findings, note } = headline;
+  return { word, title, reading, switched, biased, volatile, findings, note };
 }
 
 /** Where a p comes from: its reference, the draws behind it, and whether it is only a bound. */

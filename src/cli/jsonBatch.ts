@@ -1,7 +1,8 @@
 /**
  * The `batch --json`, `audit --json` and `fdr --json` documents: one entry per series in ranked
- * order (batchOrder.ts), each with its `rank` (1 = look first), its `position` in the input (from
- * 1) and whether it is `kept` after the false-discovery step. The joint test's statistic is
+ * order (core/batchRanking.ts by way of batchOrder.ts), each with its `rank` (1 = look first), its
+ * `position` in the input (from 1), whether its lag structure is `kept` and its bias kept
+ * (`biased`) by the false-discovery steps, and its headline (`word`, `title`, `finding`). The joint test's statistic is
  * `statistic` and its Benjamini–Hochberg value `qValue`: never `q` beside `qValue`. `--top` and
  * `--kept` select entries as they select rows of the text; `total` counts every series.
  */
@@ -11,7 +12,9 @@ import type {
   BatchCheck,
   BatchRow,
   ForecastAuditOptions,
+  Headline,
   PReference,
+  Reading,
   VerdictWord,
 } from "../core";
 import {
@@ -36,11 +39,26 @@ export interface RankedEntryJson {
   readonly label: string;
   /** Place in the input, from 1 (the column among the series, or the id's first appearance). */
   readonly position: number;
-  /** Kept after the false-discovery step: q-value ≤ alpha (for an audit, either q-value). */
+  /** The lag structure (an audit: the dependence) is kept by the false-discovery step. */
   readonly kept: boolean;
+  /** The bias is kept by the false-discovery step on the bias p-values. */
+  readonly biased: boolean;
+  /** The headline across the batch (core/batchHeadline.ts); null when not analysed. */
+  readonly word: VerdictWord | null;
+  readonly title: string | null;
+  readonly finding: string | null;
+  /** The series' own verdict, before the false-discovery step. */
   readonly verdict: VerdictWord | null;
   /** The verdict's reason, or why the series could not be analysed. */
   readonly reason: string;
+}
+
+function headlineFields(headline: Headline | null) {
+  return {
+    word: headline?.word ?? null,
+    title: headline?.title ?? null,
+    finding: headline?.finding ?? null,
+  };
 }
 
 export interface BatchEntryJson extends RankedEntryJson {
@@ -55,6 +73,13 @@ export interface BatchEntryJson extends RankedEntryJson {
   /** Benjamini–Hochberg q-value of p across the series. */
   readonly qValue: number;
   readonly qValueBound: boolean;
+  /** Robust when the volatility check fired (null when not analysed); Engle's LM p. */
+  readonly reading: Reading | null;
+  readonly volatilityP: number;
+  /** The mean, its bias-check p and that p's q-value across the series. */
+  readonly mean: number;
+  readonly biasP: number;
+  readonly biasQValue: number;
 }
 
 /** Which ranked entries a document holds. */
@@ -72,9 +97,11 @@ export interface BatchJson {
   readonly series: readonly BatchEntryJson[];
   readonly flaggedRaw: number;
   readonly flaggedFdr: number;
+  readonly biasFlaggedRaw: number;
+  readonly biasFlaggedFdr: number;
 }
 
-function batchEntry({ item: row, rank, kept, index }: Ranked<BatchRow>): BatchEntryJson {
+function batchEntry({ item: row, rank, index }: Ranked<BatchRow>): BatchEntryJson {
   return {
     rank,
     label: row.label,
@@ -88,7 +115,14 @@ function batchEntry({ item: row, rank, kept, index }: Ranked<BatchRow>): BatchEn
     pBound: row.pBound,
     qValue: row.qValue,
     qValueBound: row.qValueBound,
-    kept,
+    reading: row.reading,
+    volatilityP: row.volatilityP,
+    mean: row.mean,
+    biasP: row.biasP,
+    biasQValue: row.biasQValue,
+    kept: row.kept,
+    biased: row.headline?.biased ?? false,
+    ...headlineFields(row.headline),
     verdict: row.verdict,
     reason: row.reason,
   };
@@ -104,6 +138,8 @@ export function batchJson(batch: BatchCheck, selection: RankedSelection = ALL_RA
     series: selectRanked(all, selection).map(batchEntry),
     flaggedRaw: batch.flaggedRaw,
     flaggedFdr: batch.flaggedFdr,
+    biasFlaggedRaw: batch.biasFlaggedRaw,
+    biasFlaggedFdr: batch.biasFlaggedFdr,
   };
 }
 
@@ -177,10 +213,16 @@ export interface AuditJson {
 function auditEntry({
   item,
   rank,
-  kept,
   index,
 }: Ranked<AuditBatchItem>): AuditEntryJson | NotAuditedEntryJson {
-  const place = { rank, label: item.label, position: index + 1, kept };
+  const place = {
+    rank,
+    label: item.label,
+    position: index + 1,
+    kept: item.kept,
+    biased: item.biased,
+    ...headlineFields(item.headline),
+  };
   const audit = item.audit;
   if (audit === null) {
     return {

@@ -1,16 +1,16 @@
 /**
  * The forecast audit of many error series as fixed-width text for the terminal, within 80
- * columns: per series in ranked order (batchOrder.ts) the bias (mean error, its p and q-value
- * across the series) and the joint test of the lags from h on (its p and q-value), and the
- * verdict; a line closing the rows kept after the false-discovery step; the raw and
- * false-discovery-rate counts for dependence and for bias; and, when asked (`reasons`), each shown
- * series' reason with the lags below the horizon that h-step errors are expected to carry (shown,
- * not counted).
+ * columns: per series in the core's ranked order (batchOrder.ts) the bias (mean error and its
+ * q-value across the series), the joint test of the lags from h on (its p and q-value) and the
+ * headline (core/batchHeadline.ts rules); a line closing the rows kept after the false-discovery
+ * step; the raw and false-discovery-rate counts for dependence and for bias; and, when asked
+ * (`reasons`), each shown series' finding with the lags below the horizon that h-step errors are
+ * expected to carry (shown, not counted).
  */
 import { formatNumber, type AuditBatch, type AuditBatchItem, type ForecastAudit } from "../core";
 import { ALL_RANKED, rankedAuditItems, selectRanked, type RankedSelection } from "./batchOrder";
-import { rankedBodyLines, verdictCell } from "./rankedFooter";
-import { rankedTableText, type TextColumn } from "./rankedTable";
+import { headlineCell, rankedBodyLines } from "./rankedFooter";
+import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
 import { pCell } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
@@ -37,29 +37,19 @@ function columns(batch: AuditBatch): TextColumn<AuditBatchItem>[] {
   );
   const n = audited((a) => String(a.n));
   const mean = audited((a) => formatNumber(a.bias.mean, 3));
-  const biasP = audited((a) => pCell(a.bias.p, 7));
   const dependenceP = audited((a) => pCell(a.levels.jointP.p, 7));
+  const width = lastColumnWidth(
+    batch.items.map((item) => headlineCell(item.headline)),
+    "headline",
+  );
   return [
     { header: "n", width: nWidth, cell: (item) => n(item) ?? "—" },
     { header: "mean", width: 9, cell: (item) => mean(item) ?? "—" },
-    { header: "p", width: 7, cell: (item) => biasP(item) ?? "—" },
     { header: "q-value", width: 7, cell: (item) => pCell(item.biasQValue, 7) },
     { header: "p", width: 7, cell: (item) => dependenceP(item) ?? "—" },
     { header: "q-value", width: 7, cell: (item) => pCell(item.dependenceQValue, 7) },
-    {
-      header: " verdict",
-      width: 12,
-      left: true,
-      cell: (item) => ` ${verdictCell(item.audit?.verdict.word ?? null)}`,
-    },
+    { header: " headline", width, left: true, cell: (item) => ` ${headlineCell(item.headline)}` },
   ];
-}
-
-/** `text` centred in `width` between rules: "──── bias ────". */
-function groupLabel(text: string, width: number): string {
-  const left = Math.floor((width - text.length - 2) / 2);
-  const right = width - text.length - 2 - left;
-  return `${"─".repeat(left)} ${text} ${"─".repeat(right)}`;
 }
 
 /** The lags below the horizon, as a sentence for the reasons. */
@@ -84,7 +74,7 @@ export function auditText(batch: AuditBatch, context: AuditTextContext): string 
   appendLines(
     lines,
     wrapText(
-      `forecast audit: ${batch.items.length} series, horizon ${horizon}; ${lagsNote}; Bartlett bands; alpha ${alpha}${season === null ? "" : `; season ${season}`}; ranked by the smaller q-value of bias and dependence, ties by p, then file order`,
+      `forecast audit: ${batch.items.length} series, horizon ${horizon}; ${lagsNote}; Bartlett bands; alpha ${alpha}${season === null ? "" : `; season ${season}`}. Ranked: kept findings first (by the smaller kept q-value), then watch, clear, short; within each by the dependence q-value, ties by p, then file order.`,
     ),
   );
   if (audits.length > 0) {
@@ -121,21 +111,22 @@ export function auditText(batch: AuditBatch, context: AuditTextContext): string 
         (item) => item.label,
         cols,
         (start) =>
-          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("bias", 25)} ${groupLabel("dependence", 15)}`,
+          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("bias", 17)} ${groupLabel("dependence", 15)}`,
       ),
       headerLines: 2,
       counts: [
         `dependence: raw p < ${alpha} flags ${batch.flaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.flaggedFdr} (about ${formatNumber(analysed * alpha, 2)} raw flags expected by chance if every forecast were sound).`,
-        `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.biasFlaggedFdr}. A row is kept when either q-value is ≤ ${alpha}.`,
+        `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.biasFlaggedFdr} (marked "biased").`,
+        `Only kept items are called structure or biased; a finding the false-discovery step does not keep is at most watch.`,
       ],
       reasons: shown.map(({ rank, item }) => ({
         rank,
         label: item.label,
-        word: item.audit?.verdict.word ?? null,
+        headline: item.headline,
         reason:
-          item.audit === null
+          item.audit === null || item.headline === null
             ? item.problem
-            : `${item.audit.verdict.reason}${expectedLags(item.audit, horizon)}`,
+            : `${item.headline.finding}${expectedLags(item.audit, horizon)}`,
       })),
       showReasons: context.reasons === true,
       // Beyond one step every audited row has lags to show: the expected ones below the horizon.

@@ -1,9 +1,11 @@
 /**
  * The batch check as fixed-width text for the terminal, within 80 columns: one row per series in
- * ranked order (batchOrder.ts: the ones to look at first on top), a line closing the rows kept
- * after the false-discovery step, the count the raw p-values flag against the count the
- * false-discovery rate keeps, the reasons of series that could not be analysed, and each shown
- * series' reason when asked (`reasons`).
+ * the core's ranked order (batchOrder.ts: the ones to look at first on top) with its lag-structure
+ * p and q-value, its bias q-value and its headline (core/batchHeadline.ts), a line closing the
+ * rows kept after the false-discovery step, the count the raw p-values flag against the counts
+ * the false-discovery steps keep, the reasons of series that could not be analysed, and each
+ * shown series' finding when asked (`reasons`). The joint test's statistic is in --json and
+ * --csv (`statistic`).
  */
 import {
   formatLevel,
@@ -14,9 +16,9 @@ import {
   type TestKind,
 } from "../core";
 import { ALL_RANKED, rankedBatchRows, selectRanked, type RankedSelection } from "./batchOrder";
-import { rankedBodyLines, verdictCell } from "./rankedFooter";
-import { rankedTableText, type TextColumn } from "./rankedTable";
-import { pCell, numberCell } from "./tableCells";
+import { headlineCell, rankedBodyLines } from "./rankedFooter";
+import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
+import { pCell } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
 export interface BatchTextContext {
@@ -32,23 +34,21 @@ export interface BatchTextContext {
 }
 
 function columns(batch: BatchCheck): TextColumn<BatchRow>[] {
-  const { alpha } = batch;
   const nWidth = batch.rows.reduce((w, row) => Math.max(w, String(row.n).length), 4);
+  const width = lastColumnWidth(
+    batch.rows.map((row) => headlineCell(row.headline)),
+    "headline",
+  );
   return [
     { header: "n", width: nWidth, cell: (row) => String(row.n) },
-    { header: "statistic", width: 9, cell: (row) => numberCell(row.q, 2, 9) },
-    { header: "df", width: 3, cell: (row) => (Number.isNaN(row.df) ? "—" : String(row.df)) },
     { header: "p", width: 8, cell: (row) => pCell(row.p, 8) },
-    { header: "q-value", width: 7, cell: (row) => pCell(row.qValue, 7) },
-    { header: " verdict", width: 12, left: true, cell: (row) => ` ${verdictCell(row.verdict)}` },
+    { header: "q-value", width: 8, cell: (row) => pCell(row.qValue, 8) },
+    { header: "q-value", width: 8, cell: (row) => pCell(row.biasQValue, 8) },
     {
-      header: "flagged",
-      width: 7,
+      header: " headline",
+      width,
       left: true,
-      cell: (row) =>
-        [row.p < alpha ? "raw" : "", row.qValue <= alpha ? "FDR" : ""]
-          .filter((f) => f !== "")
-          .join("+"),
+      cell: (row) => ` ${headlineCell(row.headline)}`,
     },
   ];
 }
@@ -63,11 +63,12 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
   appendLines(
     lines,
     wrapText(
-      `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${lags}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}; ranked by q-value, ties by p, then file order; statistic is the joint test's Q`,
+      `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${lags}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}. Lag structure: p of the joint test and the largest lag as one test, and its q-value across the series; bias: the q-value of the mean's test. Ranked: kept findings first, then watch, clear, short; within each by q-value, ties by p, then file order.`,
     ),
   );
   lines.push("");
   const expected = formatNumber(batch.analysed * alpha, 2);
+  const nWidth = columns(batch)[0]?.width ?? 4;
   appendLines(
     lines,
     rankedBodyLines({
@@ -75,17 +76,24 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
       all,
       shown,
       selection,
-      table: rankedTableText(shown, (row) => row.label, columns(batch)),
-      headerLines: 1,
+      table: rankedTableText(
+        shown,
+        (row) => row.label,
+        columns(batch),
+        (start) =>
+          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("lag structure", 17)} ${groupLabel("bias", 8)}`,
+      ),
+      headerLines: 2,
       counts: [
         `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
-        `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q-value ≤ ${alpha}); among series flagged this way, false flags are held to about ${formatLevel(alpha)} on average (less strictly for short series, where Ljung–Box p-values run a little small in the far tail).`,
+        `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept (Benjamini–Hochberg q-value ≤ ${alpha}); among the kept, false flags are held to about ${formatLevel(alpha)} on average. Only kept series are called structure; a finding the step does not keep is at most watch.`,
+        `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw}; the false-discovery step on bias keeps ${batch.biasFlaggedFdr} (marked "biased").`,
       ],
       reasons: shown.map(({ rank, item }) => ({
         rank,
         label: item.label,
-        word: item.verdict,
-        reason: item.reason,
+        headline: item.headline,
+        reason: item.headline?.finding ?? item.reason,
       })),
       showReasons: context.reasons === true,
       includeClear: false,

@@ -11,7 +11,7 @@
  * in exported CSV). Numbers are written by Echolot, never taken from a cell as text, so a
  * negative figure stays a number.
  */
-import type { AuditBatch, AuditBatchItem, BatchCheck, BatchRow } from "../core";
+import type { AuditBatch, AuditBatchItem, BatchCheck, BatchRow, Headline } from "../core";
 import {
   rankedAuditItems,
   rankedBatchRows,
@@ -49,11 +49,22 @@ const BATCH_HEADER = [
   "pReference",
   "qValue",
   "kept",
-  "verdict",
-  "reason",
+  "mean",
+  "biasP",
+  "biasQValue",
+  "biased",
+  "reading",
+  "word",
+  "title",
+  "finding",
 ];
 
-function batchRecord({ item: row, rank, kept, index }: Ranked<BatchRow>): CsvCell[] {
+/** The headline's word, title and finding; for an item not analysed, why. */
+function headlineCells(headline: Headline | null, reason: string): CsvCell[] {
+  return [headline?.word ?? null, headline?.title ?? null, headline?.finding ?? reason];
+}
+
+function batchRecord({ item: row, rank, index }: Ranked<BatchRow>): CsvCell[] {
   return [
     rank,
     row.label,
@@ -64,9 +75,13 @@ function batchRecord({ item: row, rank, kept, index }: Ranked<BatchRow>): CsvCel
     row.p,
     row.reference,
     row.qValue,
-    kept,
-    row.verdict,
-    row.reason,
+    row.kept,
+    row.mean,
+    row.biasP,
+    row.biasQValue,
+    row.headline?.biased ?? false,
+    row.reading,
+    ...headlineCells(row.headline, row.reason),
   ];
 }
 
@@ -85,6 +100,7 @@ const AUDIT_HEADER = [
   "biasT",
   "biasP",
   "biasQValue",
+  "biased",
   "firstLag",
   "maxLag",
   "statistic",
@@ -93,15 +109,16 @@ const AUDIT_HEADER = [
   "pReference",
   "qValue",
   "kept",
-  "verdict",
-  "reason",
+  "word",
+  "title",
+  "finding",
 ];
 
-function auditRecord({ item, rank, kept, index }: Ranked<AuditBatchItem>): CsvCell[] {
+function auditRecord({ item, rank, index }: Ranked<AuditBatchItem>): CsvCell[] {
   const audit = item.audit;
   if (audit === null) {
-    const figures = Array<CsvCell>(AUDIT_HEADER.length - 6).fill(null);
-    return [rank, item.label, index + 1, ...figures, kept, null, item.problem];
+    const figures = Array<CsvCell>(AUDIT_HEADER.length - 7).fill(null);
+    return [rank, item.label, index + 1, ...figures, false, ...headlineCells(null, item.problem)];
   }
   const { bias, dependenceTest } = audit;
   return [
@@ -114,6 +131,7 @@ function auditRecord({ item, rank, kept, index }: Ranked<AuditBatchItem>): CsvCe
     bias.tCorrected,
     bias.p,
     item.biasQValue,
+    item.biased,
     dependenceTest.firstLag,
     audit.maxLag,
     dependenceTest.q,
@@ -121,9 +139,8 @@ function auditRecord({ item, rank, kept, index }: Ranked<AuditBatchItem>): CsvCe
     audit.levels.jointP.p,
     audit.levels.jointP.reference,
     item.dependenceQValue,
-    kept,
-    audit.verdict.word,
-    audit.verdict.reason,
+    item.kept,
+    ...headlineCells(item.headline, item.problem),
   ];
 }
 

@@ -1,25 +1,32 @@
 /**
  * The body of the batch and audit text views, below their heading: the ranked table with a line
  * closing the rows kept after the false-discovery step, which rows are shown, the raw and
- * false-discovery counts, the reasons (each shown item that is not clear, behind `--reasons`),
+ * false-discovery counts, the reasons (each shown item that is not plainly clear, behind
+ * `--reasons`: its headline and finding),
  * the items that could not be analysed, and the screening caution — all within 80 columns.
  */
-import type { VerdictWord } from "../core";
+import type { Headline } from "../core";
 import { selectionNote, type Ranked, type RankedSelection } from "./batchOrder";
 import { keptCutLine, keptCutText, type RankedTableText } from "./rankedTable";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 import { appendLines, wrapText } from "./textWrap";
 
-/** The verdict as a table cell: shape and word; "— see below" for an item not analysed. */
-export function verdictCell(word: VerdictWord | null): string {
-  return word === null ? "— see below" : `${BADGES[word].shape} ${word}`;
+/**
+ * The headline as a table cell: shape, word, "(robust)" when the robust reading gave the word,
+ * ", biased" when the bias is kept; "— see below" for an item not analysed.
+ */
+export function headlineCell(headline: Headline | null): string {
+  if (headline === null) return "— see below";
+  const robust = headline.switched ? " (robust)" : "";
+  const biased = headline.biased ? ", biased" : "";
+  return `${BADGES[headline.word].shape} ${headline.word}${robust}${biased}`;
 }
 
 export interface ReasonItem {
   readonly rank: number;
   readonly label: string;
   /** null: the item could not be analysed (it is listed apart, with why). */
-  readonly word: VerdictWord | null;
+  readonly headline: Headline | null;
   readonly reason: string;
 }
 
@@ -61,12 +68,18 @@ export function rankedBodyLines(body: RankedBody): string[] {
     );
   }
   const worth = body.reasons.filter(
-    (r) => r.word !== null && (body.includeClear || r.word !== "clear"),
+    (r) =>
+      r.headline !== null &&
+      (body.includeClear || r.headline.word !== "clear" || r.headline.biased),
   );
   if (worth.length > 0) lines.push("");
   if (body.showReasons) {
     for (const item of worth) {
-      lines.push(`${String(item.rank).padStart(3)} ${item.label}: ${verdictCell(item.word)}`);
+      const { headline } = item;
+      if (headline === null) continue;
+      lines.push(
+        `${String(item.rank).padStart(3)} ${item.label}: ${BADGES[headline.word].shape} ${headline.title}`,
+      );
       appendLines(lines, wrapText(item.reason, "    ", "    "));
     }
   } else if (worth.length > 0) {

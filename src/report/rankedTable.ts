@@ -82,3 +82,15 @@ export function keptCutLine(rows: readonly Ranked<unknown>[]): number {
 export function keptCutText(alpha: number): string {
   return `    ── above: kept after the false-discovery step (q-value ≤ ${alpha}) ──`;
 }
+
+/** `text` centred in `width` between rules: "──── bias ────". */
+export function groupLabel(text: string, width: number): string {
+  const left = Math.floor((width - text.length - 2) / 2);
+  const right = width - text.length - 2 - left;
+  return `${"─".repeat(left)} ${text} ${"─".repeat(right)}`;
+}
+
+/** Width of a left-aligned last column of words: its longest cell, one space before it. */
+export function lastColumnWidth(cells: readonly string[], header: string): number {
+  return cells.reduce((w, cell) => Math.max(w, Array.from(cell).length), header.length) + 1;
+}

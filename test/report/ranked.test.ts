@@ -5,35 +5,67 @@
 import { parse } from "csv-parse/sync";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import type { BatchCheck, BatchRow } from "../../src/core";
+import type { BatchCheck, BatchRow, Headline, VerdictWord } from "../../src/core";
 import { rankedBatchRows, selectRanked } from "../../src/report/batchOrder";
 import { batchText } from "../../src/report/batchText";
 import { csvCell, csvText } from "../../src/report/rankedCsv";
 import { wrapText } from "../../src/report/textWrap";
 
-function row(label: string, p: number, qValue: number): BatchRow {
+function headline(word: VerdictWord, biased = false): Headline {
+  return {
+    word,
+    reading: "plain",
+    switched: false,
+    biased,
+    volatile: false,
+    title: `${word}${biased ? ", biased" : ""}`,
+    finding: `A ${word} finding, with a comma.`,
+    note: "",
+    findings: [],
+  };
+}
+
+/** A batch row as the core makes it; `biasQ` below alpha marks the bias kept. */
+function row(label: string, p: number, qValue: number, biasQ = NaN): BatchRow {
+  const analysed = !Number.isNaN(p);
+  const word: VerdictWord = qValue <= 0.05 ? "structure" : p < 0.05 ? "watch" : "clear";
   return {
     label,
     n: 50,
     q: 1,
     df: 10,
     p,
-    reference: Number.isNaN(p) ? null : "permutation",
+    reference: analysed ? "permutation" : null,
     draws: 999,
     pBound: false,
     qValue,
     qValueBound: false,
-    verdict: Number.isNaN(p) ? null : "clear",
-    reason: "",
+    verdict: analysed ? word : null,
+    reason: analysed ? "" : "too few values",
+    reading: analysed ? "plain" : null,
+    volatilityP: NaN,
+    mean: 0,
+    biasP: NaN,
+    biasQValue: biasQ,
+    kept: analysed && qValue <= 0.05,
+    headline: analysed ? headline(word, biasQ <= 0.05) : null,
   };
 }
 
 function batch(rows: BatchRow[]): BatchCheck {
-  return { alpha: 0.05, rows, flaggedRaw: 0, flaggedFdr: 0, analysed: rows.length };
+  return {
+    alpha: 0.05,
+    rows,
+    flaggedRaw: 0,
+    flaggedFdr: 0,
+    analysed: rows.length,
+    biasFlaggedRaw: 0,
+    biasFlaggedFdr: 0,
+  };
 }
 
 describe("rankedBatchRows(batch)", () => {
-  it("ranks by q-value, breaks ties in q by p, then by input order; not analysed last", () => {
+  it("numbers the core's ranking from 1, keeps each row's input position, and marks kept structure or kept bias", () => {
     const ranked = rankedBatchRows(
       batch([
         row("none", NaN, NaN),
@@ -42,9 +74,11 @@ describe("rankedBatchRows(batch)", () => {
         row("tie-first-p", 0.01, 0.04),
         row("tie-same-p-b", 0.02, 0.04),
         row("best", 0.001, 0.01),
+        row("biased only", 0.4, 0.6, 0.001),
       ]),
     );
     expect(ranked.map((r) => r.item.label)).toEqual([
+      "biased only",
       "best",
       "tie-first-p",
       "tie-later-p",
@@ -52,9 +86,9 @@ describe("rankedBatchRows(batch)", () => {
       "alone",
       "none",
     ]);
-    expect(ranked.map((r) => r.rank)).toEqual([1, 2, 3, 4, 5, 6]);
-    expect(ranked.map((r) => r.kept)).toEqual([true, true, true, true, false, false]);
-    expect(ranked.map((r) => r.index)).toEqual([5, 3, 1, 4, 2, 0]);
+    expect(ranked.map((r) => r.rank)).toEqual([1, 2, 3, 4, 5, 6, 7]);
+    expect(ranked.map((r) => r.kept)).toEqual([true, true, true, true, true, false, false]);
+    expect(ranked.map((r) => r.index)).toEqual([6, 5, 3, 1, 4, 2, 0]);
   });
 
   it("selectRanked keeps the kept rows, then the first N of them", () => {
@@ -79,7 +113,7 @@ describe("batchText(batch, context)", () => {
     const text = batchText(batch([row(long, 0.001, 0.002), row("short", 0.5, 0.5)]), context);
     for (const line of text.split("\n"))
       expect(Array.from(line).length, line).toBeLessThanOrEqual(80);
-    expect(text).toMatch(/^\s+1 Northern warehouse… +50 /m);
+    expect(text).toMatch(/^\s+1 Northern warehouse[^\n]*… +50 /m);
     expect(text).toMatch(/Long names are shortened with …; --csv and --json give them whole\./);
   });
 
