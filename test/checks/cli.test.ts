@@ -89,14 +89,16 @@ describe("echolot batch", () => {
     expect(kept.sort()).toEqual([...UNDER_REACTS].sort());
   });
 
-  it("batch prints a table sorted by q-value with the summary and the caution", () => {
+  it("batch prints a ranked table, kept findings first, with the summary and the caution", () => {
     const result = runCli(["batch", DEMO]);
     expect(result.status).toBe(0);
     const rows = result.stdout.split("\n").filter((l) => /^\s*\d+ .*\s(●|▲|■|◌) /.test(l));
     expect(rows).toHaveLength(24);
-    expect(UNDER_REACTS).toContain(/^\s*1 (.+?)\s{2,}/.exec(rows[0] ?? "")?.[1]);
+    // Kept findings rank first: the two biased blends (kept bias), then the under-reacting ones.
+    const labels = rows.map((l) => /^\s*\d+ (.+?)\s{2,}/.exec(l)?.[1]);
+    expect(labels.slice(0, 6).sort()).toEqual([...BIASED, ...UNDER_REACTS].sort());
     expect(result.stdout).toMatch(/raw p < 0.05: \d+ of 24 series flagged/);
-    expect(result.stdout).toMatch(/false-discovery rate 0.05: 4 kept flagged/);
+    expect(result.stdout).toMatch(/false-discovery rate 0.05: 4 kept \(Benjamini–Hochberg/);
     expect(result.stdout).toMatch(/statistical screen, not a decision/);
   });
 
