@@ -37,6 +37,8 @@ interface Document {
 }
 
 const ALPHA = 0.05;
+/** Each CLI run analyses 150 series; a test makes up to three, on a loaded 2-core machine. */
+const SLOW = { timeout: 240_000 };
 let file = "";
 
 function run(args: readonly string[]): string {
@@ -88,7 +90,7 @@ beforeAll(() => {
   file = csvFile("planner-150.csv", plannerFile().csv);
 });
 
-describe("echolot batch at 150 items", () => {
+describe("echolot batch at 150 items", SLOW, () => {
   let doc: Document;
   let text: string;
   beforeAll(() => {
@@ -190,7 +192,7 @@ describe("echolot batch at 150 items", () => {
   });
 });
 
-describe("echolot audit at 150 items", () => {
+describe("echolot audit at 150 items", SLOW, () => {
   let doc: Document;
   let text: string;
   beforeAll(() => {
