@@ -79,6 +79,8 @@ describe("echolot batch", () => {
       expect.arrayContaining(["rank", "label", "n", "statistic", "df", "p", "qValue", "verdict"]),
     );
     expect(doc.series.find((s) => s.position === 1)?.label).toBe("Harbour Dawn");
+    // Ranked (core/batchRanking.ts): the kept findings first, biased or under-reacting blends.
+    expect([...UNDER_REACTS, ...BIASED]).toContain(doc.series[0]?.label);
     expect(doc.flaggedRaw).toBe(doc.series.filter((s) => s.p < 0.05).length);
     expect(doc.flaggedFdr).toBe(doc.series.filter((s) => s.qValue <= 0.05).length);
   });
