@@ -111,7 +111,7 @@ describe("echolot report FILE.csv --out report.html", () => {
       join(out, "x.html"),
     ]);
     expect(json.status).toBe(2);
-    expect(json.stderr).toContain("report does not take --json");
+    expect(json.stderr).toContain("unknown option --json for report");
     const bad = runCli([
       "report",
       "test/fixtures/series-f.csv",
