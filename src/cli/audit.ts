@@ -2,15 +2,16 @@
  * `echolot audit FILE --horizon H [--season M] [--alpha A] [--lags K] [--json]`: the forecast
  * audit of every series — every numeric column, or every id in long format (`--id COL --time COL
  * --value COL`) — each an error series of H-step-ahead forecasts. Every column or id not audited
- * is listed with why.
+ * is listed with why. Each series' audit runs in worker threads (`--workers N`, default every
+ * core; parallel.ts) with the same results for any N.
  */
-import { auditBatch, type ForecastAuditOptions } from "../core";
+import { auditBatchOf, resolveAlpha, type ForecastAuditOptions } from "../core";
 import { auditText } from "../report/auditText";
-import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { notAnalysedLines, readManySeries } from "./input";
+import { notAnalysedLines } from "./input";
 import { auditJson, toJsonText } from "./json";
 import { LONG_OPTIONS, numberOption, READ_OPTIONS, type ParsedCommand } from "./options";
+import { eachSeriesOf } from "./parallel";
 
 export const AUDIT_OPTIONS = [
   "horizon",
@@ -20,6 +21,7 @@ export const AUDIT_OPTIONS = [
   ...READ_OPTIONS,
   ...LONG_OPTIONS,
   "json",
+  "workers",
 ];
 
 export async function runAudit({ files, values }: ParsedCommand): Promise<string> {
@@ -39,13 +41,20 @@ export async function runAudit({ files, values }: ParsedCommand): Promise<string
     alpha: numberOption("alpha", values.alpha) ?? null,
     maxLag: numberOption("lags", values.lags) ?? null,
   };
-  const many = await readManySeries(readingFrom(file, values), values);
-  if (many.series.length === 0) {
+  const alpha = resolveAlpha(options.alpha);
+  // Each series' audit in worker threads; the q-values across them once, here, in series order.
+  const { many, results: entries } = await eachSeriesOf(
+    file,
+    values,
+    { kind: "audit", options },
+    "auditing",
+  );
+  if (entries.length === 0) {
     throw new UsageError(
       `${file} has no series to audit: ${many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ")}`,
     );
   }
-  const result = auditBatch(many.series, options);
+  const result = auditBatchOf(entries, alpha);
   return values.json === true
     ? toJsonText({
         source: many.source,

@@ -4,13 +4,13 @@
  * across them. Every column or id not analysed is listed with why.
  *
  * `--format jsonl` writes one line per series without the cross-series step, for batches split
- * across machines; `echolot fdr` merges such parts (fdr.ts).
+ * across machines; `echolot fdr` merges such parts (fdr.ts). The per-series stage runs in worker
+ * threads (`--workers N`, default every core; parallel.ts) with the same results for any N.
  */
-import { batchCheck, seriesResult } from "../core";
+import { batchOfResults, parseTestKind, resolveAlpha } from "../core";
 import { batchText } from "../report/batchText";
-import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { notAnalysedLines, readManySeries } from "./input";
+import { notAnalysedLines } from "./input";
 import { batchJson, toJsonText } from "./json";
 import {
   formatOption,
@@ -20,8 +20,16 @@ import {
   READ_OPTIONS,
   type ParsedCommand,
 } from "./options";
+import { eachSeriesOf } from "./parallel";
 
-export const BATCH_OPTIONS = [...LAG_OPTIONS, ...READ_OPTIONS, ...LONG_OPTIONS, "json", "format"];
+export const BATCH_OPTIONS = [
+  ...LAG_OPTIONS,
+  ...READ_OPTIONS,
+  ...LONG_OPTIONS,
+  "json",
+  "format",
+  "workers",
+];
 
 export async function runBatch({ files, values }: ParsedCommand): Promise<string> {
   const file = files[0];
@@ -31,17 +39,20 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
     );
   const format = formatOption(values, ["text", "json", "jsonl"]);
   const options = lagOptionsFrom(values);
-  const many = await readManySeries(readingFrom(file, values), values);
-  if (format === "jsonl") {
-    const lines: string[] = [];
-    many.series.forEach((series, i) =>
-      lines.push(JSON.stringify(seriesResult(series, i, options))),
-    );
-    return lines.join("\n");
-  }
+  // Options every series shares are refused here, once, not in each worker.
+  resolveAlpha(options.alpha);
+  parseTestKind(options.testKind);
+  // The per-series stage in worker threads; the cross-series step once, here, in series order.
+  const { many, results } = await eachSeriesOf(
+    file,
+    values,
+    { kind: "batch", options },
+    "checking",
+  );
+  if (format === "jsonl") return results.map((r) => JSON.stringify(r)).join("\n");
   let result;
   try {
-    result = batchCheck(many.series, options);
+    result = batchOfResults(results);
   } catch (error) {
     const left = many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ");
     if (left !== "" && error instanceof Error) error.message += ` (not analysed: ${left})`;

@@ -13,6 +13,7 @@ import { REPORT_OPTIONS, runReport } from "./report";
 import { runWorkbook, WORKBOOK_OPTIONS } from "./workbook";
 import { UsageError } from "./errors";
 import { parseCommand, type ParsedCommand } from "./options";
+import { isSeriesWorker, serveSeriesTasks } from "./parallel";
 import { writeStdout } from "./output";
 
 const READ = "[--delimiter ,|;|tab] [--decimal .|,] [--na WORD,…] [--percent] [--no-header]";
@@ -22,8 +23,8 @@ const LONG = "[--id COL --time COL --value COL]";
 
 const USAGES: Readonly<Record<string, string>> = {
   check: `echolot check FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--json]`,
-  audit: `echolot audit FILE.csv|- --horizon H [--season M] [--alpha A] [--lags K] ${LONG} ${READ} [--json]`,
-  batch: `echolot batch FILE.csv|- ${LAGS} ${LONG} ${READ} [--json | --format text|json|jsonl]`,
+  audit: `echolot audit FILE.csv|- --horizon H [--season M] [--alpha A] [--lags K] ${LONG} ${READ} [--workers N] [--json]`,
+  batch: `echolot batch FILE.csv|- ${LAGS} ${LONG} ${READ} [--workers N] [--json | --format text|json|jsonl]`,
   report: `echolot report FILE.csv|- [--column NAME|N] ${LAGS} ${READ} --out report.html [--force]`,
   workbook: `echolot workbook FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--batch] --out book.xlsx [--force]`,
   fdr: "echolot fdr [PART.jsonl … | -] [--json | --format text|json|jsonl]",
@@ -91,6 +92,11 @@ export async function main(argv: readonly string[]): Promise<number> {
   }
 }
 
-void main(process.argv.slice(2)).then((status) => {
-  process.exitCode = status;
-});
+// The same file runs the batch workers (parallel.ts): in a worker thread it serves series tasks.
+if (isSeriesWorker()) {
+  serveSeriesTasks();
+} else {
+  void main(process.argv.slice(2)).then((status) => {
+    process.exitCode = status;
+  });
+}

@@ -40,6 +40,7 @@ const OPTIONS: Readonly<Record<string, Spec>> = {
   id: { type: "string" },
   time: { type: "string" },
   value: { type: "string" },
+  workers: { type: "string" },
   help: { type: "boolean" },
 };
 

@@ -111,9 +111,31 @@ export function mergeSeriesResults(results: readonly SeriesResult[]): BatchCheck
     ids.add(r.id);
   }
   const sorted = results.slice().sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const qValues = benjaminiHochberg(sorted.map((r) => r.p ?? NaN));
-  const qBounds = boundedQValues(sorted.map((r) => ({ p: r.p ?? NaN, pBound: r.pBound })));
-  const rows: BatchRow[] = sorted.map((r, i) => ({
+  return crossSeriesStep(sorted, alpha);
+}
+
+/**
+ * The whole batch from its series' results in the order given (the same figures as `batchCheck`
+ * on the same series, row for row): the step that runs once, on one thread, after the per-series
+ * stage ran anywhere. As `batchCheck`, it needs two series at least, and when no series could be
+ * analysed it refuses with the first one's reason.
+ */
+export function batchOfResults(results: readonly SeriesResult[]): BatchCheck {
+  if (results.length < 2) {
+    invalid(
+      `a batch check needs at least 2 series (one per column); got ${results.length}: for a single series use the noise check`,
+    );
+  }
+  const first = results[0] as SeriesResult;
+  if (results.every((r) => r.verdict === null)) invalid(first.reason);
+  return crossSeriesStep(results, first.alpha);
+}
+
+/** Benjamini–Hochberg across the results, in their order, and the counts. */
+function crossSeriesStep(results: readonly SeriesResult[], alpha: number): BatchCheck {
+  const qValues = benjaminiHochberg(results.map((r) => r.p ?? NaN));
+  const qBounds = boundedQValues(results.map((r) => ({ p: r.p ?? NaN, pBound: r.pBound })));
+  const rows: BatchRow[] = results.map((r, i) => ({
     label: r.id,
     n: r.n,
     q: r.statistic ?? NaN,

@@ -35,6 +35,8 @@ export interface LongOptions {
   readonly columns: LongColumns;
   readonly cells?: CellRules;
   readonly words: OptionWords;
+  /** About how many rows to expect (from the file size), so the row arrays rarely grow. */
+  readonly expectedRows?: number;
 }
 
 export interface Calendar {
@@ -53,6 +55,21 @@ export interface LongTable {
   readonly calendar: Calendar;
   readonly rows: number;
   /** The header names of the three columns. */
+  readonly names: LongColumns;
+}
+
+/**
+ * The long table with its series made one at a time, as they are consumed, so a million ids never
+ * hold a million series at once. `notAnalysed` fills as the series are made; it is complete when
+ * `series` has been iterated to its end (once).
+ */
+export interface LongSeriesStream {
+  readonly series: Iterable<Series>;
+  /** Ids in the file (analysed or not). */
+  readonly ids: number;
+  readonly notAnalysed: readonly { readonly label: string; readonly reason: string }[];
+  readonly calendar: Calendar;
+  readonly rows: number;
   readonly names: LongColumns;
 }
 
@@ -93,16 +110,21 @@ export class LongBuilder {
   private names: LongColumns | undefined;
   private readonly idIndex = new Map<string, number>();
   private readonly ids: string[] = [];
-  private readonly idOf = new GrowableNumbers();
-  private readonly times = new GrowableNumbers();
-  private readonly values = new GrowableNumbers();
-  private readonly lines = new GrowableNumbers();
+  private readonly idOf;
+  private readonly times;
+  private readonly values;
+  private readonly lines;
   private readonly offenders = new Map<number, Offender>();
   private timeKind: "date" | "number" | undefined;
   private width = 0;
 
   constructor(private readonly options: LongOptions) {
     this.reader = cellReader(options.cells ?? {});
+    const capacity = options.expectedRows;
+    this.idOf = new GrowableNumbers(capacity);
+    this.times = new GrowableNumbers(capacity);
+    this.values = new GrowableNumbers(capacity);
+    this.lines = new GrowableNumbers(capacity);
   }
 
   push(record: readonly string[], line: number): void {
@@ -178,7 +200,19 @@ export class LongBuilder {
     return key;
   }
 
+  /** Every series at once (see `finishStreaming` for one at a time). */
   finish(): LongTable {
+    const stream = this.finishStreaming();
+    const series = Array.from(stream.series);
+    const { notAnalysed, calendar, rows, names } = stream;
+    return { series, notAnalysed, calendar, rows, names };
+  }
+
+  /**
+   * The table checked whole (calendar, duplicates, regularity: every refusal comes before the
+   * first series), with the series made as they are consumed.
+   */
+  finishStreaming(): LongSeriesStream {
     const origin = this.options.origin;
     if (this.columns === undefined || this.names === undefined) {
       invalid(`${origin} is empty: the first line must hold the column names`);
@@ -230,12 +264,9 @@ export class LongBuilder {
     }
     if (step === 0) step = 1;
 
-    const series: Series[] = [];
-    const notAnalysed: { label: string; reason: string }[] = [];
     let filled = 0;
     let positions = 0;
     for (let k = 0; k < this.ids.length; k++) {
-      const label = this.ids[k] as string;
       const segment = order.subarray(starts[k], starts[k + 1]);
       const first = times[segment[0] as number] as number;
       const last = times[segment[segment.length - 1] as number] as number;
@@ -247,28 +278,48 @@ export class LongBuilder {
         );
       }
       filled += length - segment.length;
-      const offender = this.offenders.get(k);
-      if (offender !== undefined) {
-        const where = `line ${offender.line}, column ${this.columns.value + 1} ("${this.names.value}") of ${origin}`;
-        notAnalysed.push({
-          label,
-          reason: cellRefusal(where, offender.text, (t) =>
-            textCellHint(t, this.options.cells ?? {}, this.options.words),
-          ),
-        });
-        continue;
-      }
-      const values = new Float64Array(length).fill(NaN);
-      for (const row of segment) {
-        values[((times[row] as number) - first) / step] = this.values.at(row);
-      }
-      try {
-        series.push(seriesFromColumn(values, label));
-      } catch (error) {
-        notAnalysed.push({ label, reason: (error as Error).message });
+    }
+
+    const notAnalysed: { label: string; reason: string }[] = [];
+    const { columns, names, ids, offenders } = this;
+    const values = this.values;
+    const cells = this.options.cells ?? {};
+    const words = this.options.words;
+    function* series(): Generator<Series> {
+      for (let k = 0; k < ids.length; k++) {
+        const label = ids[k] as string;
+        const offender = offenders.get(k);
+        if (offender !== undefined) {
+          const where = `line ${offender.line}, column ${columns.value + 1} ("${names.value}") of ${origin}`;
+          notAnalysed.push({
+            label,
+            reason: cellRefusal(where, offender.text, (t) => textCellHint(t, cells, words)),
+          });
+          continue;
+        }
+        const segment = order.subarray(starts[k], starts[k + 1]);
+        const first = times[segment[0] as number] as number;
+        const last = times[segment[segment.length - 1] as number] as number;
+        const kept = new Float64Array((last - first) / step + 1).fill(NaN);
+        for (const row of segment) kept[((times[row] as number) - first) / step] = values.at(row);
+        let made: Series;
+        try {
+          made = seriesFromColumn(kept, label);
+        } catch (error) {
+          notAnalysed.push({ label, reason: (error as Error).message });
+          continue;
+        }
+        yield made;
       }
     }
-    return { series, notAnalysed, calendar: { unit, step, filled }, rows, names: this.names };
+    return {
+      series: series(),
+      ids: ids.length,
+      notAnalysed,
+      calendar: { unit, step, filled },
+      rows,
+      names,
+    };
   }
 
   private timeText(key: number, unit: Calendar["unit"]): string {
@@ -281,6 +332,7 @@ export class LongBuilder {
 
 /** Day numbers when every time is a yyyymmdd date, else undefined. */
 function yyyymmddTimes(times: Float64Array): Float64Array | undefined {
+  if (times.length > 0 && yyyymmddDay(times[0] as number) === undefined) return undefined;
   const days = new Float64Array(times.length);
   for (let i = 0; i < times.length; i++) {
     const day = yyyymmddDay(times[i] as number);
