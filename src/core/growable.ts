@@ -35,6 +35,12 @@ export class GrowableNumbers {
     return this.buffer[index] as number;
   }
 
+  /** Empties the list and lets go of its buffer (views handed out keep theirs alive). */
+  release(): void {
+    this.buffer = new Float64Array(16);
+    this.size = 0;
+  }
+
   /** The values pushed so far, as a view of the buffer (no copy; later pushes may detach it). */
   view(): Float64Array {
     return this.buffer.subarray(0, this.size);

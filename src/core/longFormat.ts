@@ -210,7 +210,8 @@ export class LongBuilder {
 
   /**
    * The table checked whole (calendar, duplicates, regularity: every refusal comes before the
-   * first series), with the series made as they are consumed.
+   * first series), with the series made as they are consumed. Once the last series is made, the
+   * rows are let go: call it once.
    */
   finishStreaming(): LongSeriesStream {
     const origin = this.options.origin;
@@ -244,11 +245,14 @@ export class LongBuilder {
     }
 
     // Group by id (counting sort keeps the file order within an id), then order by time.
+    // A comparator made outside this function, so no closure here holds `times` (the generator
+    // below lets the rows go when it is done).
+    const earlier = byTime(times);
     const { order, starts } = groupById(idOf, this.ids.length);
     let step = 0;
     for (let k = 0; k < this.ids.length; k++) {
       const segment = order.subarray(starts[k], starts[k + 1]);
-      segment.sort((a, b) => (times[a] as number) - (times[b] as number));
+      segment.sort(earlier);
       for (let j = 1; j < segment.length; j++) {
         const a = segment[j - 1] as number;
         const b = segment[j] as number;
@@ -282,9 +286,18 @@ export class LongBuilder {
 
     const notAnalysed: { label: string; reason: string }[] = [];
     const { columns, names, ids, offenders } = this;
-    const values = this.values;
     const cells = this.options.cells ?? {};
     const words = this.options.words;
+    // The rows, held until the last series is made and then let go (with the builder's own
+    // arrays), so that what follows the series (the cross-series step, the output) does not
+    // carry four numbers a row.
+    let held: { order: Uint32Array; starts: Float64Array; times: Float64Array } | undefined = {
+      order,
+      starts,
+      times,
+    };
+    const values = this.values;
+    const release = () => this.releaseRows();
     function* series(): Generator<Series> {
       for (let k = 0; k < ids.length; k++) {
         const label = ids[k] as string;
@@ -297,11 +310,14 @@ export class LongBuilder {
           });
           continue;
         }
-        const segment = order.subarray(starts[k], starts[k + 1]);
-        const first = times[segment[0] as number] as number;
-        const last = times[segment[segment.length - 1] as number] as number;
+        const rows = held as NonNullable<typeof held>;
+        const segment = rows.order.subarray(rows.starts[k], rows.starts[k + 1]);
+        const first = rows.times[segment[0] as number] as number;
+        const last = rows.times[segment[segment.length - 1] as number] as number;
         const kept = new Float64Array((last - first) / step + 1).fill(NaN);
-        for (const row of segment) kept[((times[row] as number) - first) / step] = values.at(row);
+        for (const row of segment) {
+          kept[((rows.times[row] as number) - first) / step] = values.at(row);
+        }
         let made: Series;
         try {
           made = seriesFromColumn(kept, label);
@@ -311,6 +327,8 @@ export class LongBuilder {
         }
         yield made;
       }
+      held = undefined;
+      release();
     }
     return {
       series: series(),
@@ -322,12 +340,23 @@ export class LongBuilder {
     };
   }
 
+  /** Lets go of the rows once every series has been made: the builder is spent. */
+  private releaseRows(): void {
+    for (const numbers of [this.idOf, this.times, this.values, this.lines]) numbers.release();
+    this.idIndex.clear();
+  }
+
   private timeText(key: number, unit: Calendar["unit"]): string {
     if (unit === "period") return `period ${key}`;
     if (unit === "month")
       return `${Math.floor(key / 12)}-${String((key % 12) + 1).padStart(2, "0")}`;
     return isoDate(key);
   }
+}
+
+/** Orders row indices by their time. */
+function byTime(times: Float64Array): (a: number, b: number) => number {
+  return (a, b) => (times[a] as number) - (times[b] as number);
 }
 
 /** Day numbers when every time is a yyyymmdd date, else undefined. */

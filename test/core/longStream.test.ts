@@ -1,8 +1,8 @@
 /**
  * LongBuilder.finishStreaming(): the long table with each id's series made only when it is taken
  * (a batch of a million ids never holds a million series), the same series as finish(), every
- * refusal of the whole table before the first series, and the ids not analysed listed once the
- * series have been taken.
+ * refusal of the whole table before the first series, the ids not analysed listed once the
+ * series have been taken, and the rows let go then.
  */
 import { describe, expect, it } from "vitest";
 import { LongBuilder } from "../../src/core";
@@ -32,7 +32,8 @@ const LINES = [
 describe("LongBuilder.finishStreaming()", () => {
   it("makes the series of finish() one at a time, and lists the ids left out once they are taken", () => {
     const whole = builderOf(LINES).finish();
-    const stream = builderOf(LINES).finishStreaming();
+    const builder = builderOf(LINES);
+    const stream = builder.finishStreaming();
     expect(stream.ids).toBe(3);
     expect(stream.calendar).toEqual(whole.calendar);
     const iterator = stream.series[Symbol.iterator]();
@@ -49,6 +50,8 @@ describe("LongBuilder.finishStreaming()", () => {
     expect(rest.map((s) => s.label)).toEqual(whole.series.slice(1).map((s) => s.label));
     expect(stream.notAnalysed).toEqual(whole.notAnalysed);
     expect(stream.notAnalysed.map((n) => n.label)).toEqual(["bad"]);
+    // The rows are let go once the last series is made: the builder is spent.
+    expect(() => builder.finishStreaming()).toThrow(/has a header but no rows/);
   });
 
   it("refuses an irregular calendar before making any series", () => {
