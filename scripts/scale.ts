@@ -58,6 +58,8 @@ interface Measurement {
   readonly loadAverage: number;
   readonly node: string;
   readonly date: string;
+  /** The commit measured (with "+" when the worktree had changes). */
+  readonly commit: string;
 }
 
 function option(name: string, fallback: number): number {
@@ -94,6 +96,23 @@ function weekDate(week: number): string {
   return new Date(Date.UTC(2025, 0, 6 + 7 * week)).toISOString().slice(0, 10);
 }
 
+/** The short hash of HEAD, with "+" when tracked files other than this script's outputs differ. */
+function commitMeasured(): string {
+  const git = (args: string[]) =>
+    spawnSync("git", args, { cwd: ROOT, encoding: "utf8" }).stdout.trim();
+  const dirty =
+    git([
+      "status",
+      "--porcelain",
+      "--untracked-files=no",
+      "--",
+      ".",
+      ":!README.md",
+      ":!scripts/scale-results.json",
+    ]) !== "";
+  return `${git(["rev-parse", "--short", "HEAD"])}${dirty ? "+" : ""}`;
+}
+
 /** Runs the CLI under /usr/bin/time -v at nice 10; the figures of the run. */
 function measure(args: readonly string[], rows: number, series: number, file: string): Measurement {
   const stats = `${file}.time`;
@@ -126,6 +145,7 @@ function measure(args: readonly string[], rows: number, series: number, file: st
     loadAverage: Math.round(load * 10) / 10,
     node: process.version,
     date: new Date().toISOString().slice(0, 10),
+    commit: commitMeasured(),
   };
 }
 
@@ -182,7 +202,7 @@ function table(results: Record<string, Measurement>): string {
       `| ${name} | \`${m.command}\` | ${grouped(m.rows)} | ${grouped(m.series)} | ${grouped(m.fileBytes / 1e6)} MB | ${duration(m.wallSeconds)} | ${duration(cpu)} | ${grouped(m.peakKiB)} KiB | ${((m.peakKiB * 1024) / m.rows).toFixed(1)} bytes |`,
     );
     notes.push(
-      `${name}: ${m.date}, Node ${m.node}, ${m.workers} worker${m.workers === 1 ? "" : "s"}, load average ${m.loadAverage} at the start`,
+      `${name}: ${m.date}, commit ${m.commit ?? "not recorded"}, Node ${m.node}, ${m.workers} worker${m.workers === 1 ? "" : "s"}, load average ${m.loadAverage} at the start`,
     );
     if (name === "batch") {
       const perSeries = (cpu / m.series) * 1000;
