@@ -43,11 +43,11 @@ function expectIdentical(actual: unknown, expected: unknown, path = "result"): v
   }
 }
 
-/** 40 series of 30–80 values: noise, AR(1) with φ 0.5, one constant, one too short, one with a gap. */
+/** 24 series of 30–80 values: noise, AR(1) with φ 0.5, one constant, one too short, one with a gap. */
 function mixedBatch(): Series[] {
   const random = seededRandom(2026_12_02);
   const list: Series[] = [];
-  for (let i = 0; i < 36; i++) {
+  for (let i = 0; i < 20; i++) {
     const n = 30 + ((i * 7) % 51);
     const values = i % 3 === 0 ? ar1(random, n, 0.5) : whiteNoise(random, n);
     list.push(seriesFromNumbers(values, `item ${i}`));
