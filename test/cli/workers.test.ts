@@ -1,6 +1,7 @@
 /**
- * `batch` and `audit` run their per-series stage in worker threads (`--workers N`): whatever N,
- * the output is byte for byte that of the in-process run (`--workers 1`), and that run's figures
+ * `batch` and `audit` run their per-series stage in worker threads (`--workers N`): whatever N
+ * (2 and 3 here, more workers than chunks in places), the output is byte for byte that of the
+ * in-process run (`--workers 1`), and that run's figures
  * are the core's one-call batch on the same numbers (exact equality, no tolerance).
  */
 import { tmpdir } from "node:os";
@@ -12,7 +13,7 @@ import { seededRandom } from "../../src/sim/random";
 import { CLI_PATH, csvFile, runCli } from "./run";
 
 const IDS = 200;
-const WEEKS = 40;
+const WEEKS = 30;
 const random = seededRandom(20261202);
 /** Per id its weekly errors as written (4 decimals); id 7 misses week 12 (a gap). */
 const written: (string | null)[][] = Array.from({ length: IDS }, (_, i) => {
@@ -31,15 +32,15 @@ for (let t = 0; t < WEEKS; t++) {
 // One id whose value cell is text: listed as not analysed.
 lines.push("id-bad,1,oops", "id-bad,2,0.5");
 const file = csvFile("workers-long.csv", lines.join("\n"));
-/** The first 40 ids, for the audit (several times a batch's work a series). */
+/** The first 32 ids (two chunks of an audit), for the audit: several times a batch's work a series. */
 const few = csvFile(
   "workers-few.csv",
-  lines.filter((line) => !/^id-(0[4-9]|1)/.test(line)).join("\n"),
+  lines.filter((line) => !/^id-(0[4-9]|1|03[2-9])/.test(line)).join("\n"),
 );
 const LONG = ["--id", "item", "--time", "week", "--value", "error"];
 
-function outputs(args: readonly string[]): string[] {
-  return [1, 2, 3].map((workers) => {
+function outputs(args: readonly string[], counts: readonly number[]): string[] {
+  return counts.map((workers) => {
     const result = runCli([...args, "--workers", String(workers)]);
     expect(result.stderr, `--workers ${workers}`).toBe("");
     expect(result.status, `--workers ${workers}`).toBe(0);
@@ -48,9 +49,8 @@ function outputs(args: readonly string[]): string[] {
 }
 
 describe("echolot batch/audit --workers N", () => {
-  it("batch --json gives the same bytes for 1, 2 and 3 workers, and the core's batch figures", () => {
-    const [one, two, three] = outputs(["batch", file, ...LONG, "--json"]);
-    expect(two).toBe(one);
+  it("batch --json gives the same bytes for 1 and 3 workers, and the core's batch figures", () => {
+    const [one, three] = outputs(["batch", file, ...LONG, "--json"], [1, 3]);
     expect(three).toBe(one);
     const document = JSON.parse(one!) as {
       series: { label: string; p: number; qValue: number; verdict: string }[];
@@ -64,34 +64,36 @@ describe("echolot batch/audit --workers N", () => {
       ),
     );
     const whole = batchCheck(series);
-    expect(document.series.map((s) => s.label)).toEqual(whole.rows.map((r) => r.label));
-    document.series.forEach((row, i) => {
-      const expected = whole.rows[i]!;
+    // The document lists the rows in its ranked order: matched by label.
+    expect(document.series.map((s) => s.label).sort()).toEqual(
+      whole.rows.map((r) => r.label).sort(),
+    );
+    const byLabel = new Map(whole.rows.map((r) => [r.label, r]));
+    document.series.forEach((row) => {
+      const expected = byLabel.get(row.label)!;
       expect(row.p, row.label).toBe(expected.p);
       expect(row.qValue, row.label).toBe(expected.qValue);
       expect(row.verdict, row.label).toBe(expected.verdict);
     });
   });
 
-  it("batch --format jsonl gives the same bytes for 1, 2 and 3 workers", () => {
-    const [one, two, three] = outputs(["batch", file, ...LONG, "--format", "jsonl"]);
+  it("batch --format jsonl gives the same bytes for 1 and 2 workers", () => {
+    const [one, two] = outputs(["batch", file, ...LONG, "--format", "jsonl"], [1, 2]);
     expect(one!.trim().split("\n")).toHaveLength(IDS);
     expect(two).toBe(one);
-    expect(three).toBe(one);
   });
 
-  it("audit --json gives the same bytes for 1, 2 and 3 workers", () => {
-    const [one, two, three] = outputs(["audit", few, ...LONG, "--horizon", "2", "--json"]);
-    expect((JSON.parse(one!) as { series: unknown[] }).series).toHaveLength(40);
-    expect(two).toBe(one);
+  it("audit --json gives the same bytes for 1 and 3 workers", () => {
+    const [one, three] = outputs(["audit", few, ...LONG, "--horizon", "2", "--json"], [1, 3]);
+    expect((JSON.parse(one!) as { series: unknown[] }).series).toHaveLength(32);
     expect(three).toBe(one);
   });
 
   it("runs its workers from any folder, and draws no progress line when stderr is not a terminal", () => {
-    const inPlace = runCli(["batch", file, ...LONG, "--format", "jsonl", "--workers", "1"]);
+    const inPlace = runCli(["batch", few, ...LONG, "--format", "jsonl", "--workers", "1"]);
     const elsewhere = spawnSync(
       process.execPath,
-      [CLI_PATH, "batch", file, ...LONG, "--format", "jsonl", "--workers", "2"],
+      [CLI_PATH, "batch", few, ...LONG, "--format", "jsonl", "--workers", "2"],
       { cwd: tmpdir(), encoding: "utf8" },
     );
     expect(elsewhere.stderr).toBe("");
