@@ -4,14 +4,14 @@
  * of H-step-ahead forecasts, ranked as batch ranks (the series to look at first on top). Every
  * column or id not audited is listed with why. `--top N` and `--kept` choose rows, `--reasons`
  * adds each one's reason, `--csv` writes the ranked table as CSV, `--out FILE` writes to a file.
+ * Each series' audit runs in worker threads (`--workers N`, default every core; parallel.ts) with
+ * the same results for any N; the q-values across them are taken once, here.
  */
-import { auditBatch, type ForecastAuditOptions } from "../core";
+import { auditBatchOf, resolveAlpha, type ForecastAuditOptions } from "../core";
 import { rankedAuditItems, selectRanked } from "../report/batchOrder";
 import { auditText } from "../report/auditText";
 import { auditCsv } from "../report/rankedCsv";
-import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { readManySeries } from "./input";
 import { auditJson } from "./jsonBatch";
 import {
   formatOption,
@@ -22,6 +22,7 @@ import {
   selectionOption,
   type ParsedCommand,
 } from "./options";
+import { eachSeriesOf } from "./parallel";
 import { deliverRanked } from "./rankedOutput";
 
 export const AUDIT_OPTIONS = [
@@ -34,6 +35,7 @@ export const AUDIT_OPTIONS = [
   "json",
   "format",
   ...RANKED_OPTIONS,
+  "workers",
 ];
 
 export async function runAudit({ files, values }: ParsedCommand): Promise<string> {
@@ -55,13 +57,20 @@ export async function runAudit({ files, values }: ParsedCommand): Promise<string
     alpha: numberOption("alpha", values.alpha) ?? null,
     maxLag: numberOption("lags", values.lags) ?? null,
   };
-  const many = await readManySeries(readingFrom(file, values), values);
-  if (many.series.length === 0) {
+  const alpha = resolveAlpha(options.alpha);
+  // Each series' audit in worker threads; the q-values across them once, here, in series order.
+  const { many, results: entries } = await eachSeriesOf(
+    file,
+    values,
+    { kind: "audit", options },
+    "auditing",
+  );
+  if (entries.length === 0) {
     throw new UsageError(
       `${file} has no series to audit: ${many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ")}`,
     );
   }
-  const result = auditBatch(many.series, options);
+  const result = auditBatchOf(entries, alpha);
   const rows = {
     shown: selectRanked(rankedAuditItems(result), selection).length,
     total: result.items.length,

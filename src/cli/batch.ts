@@ -6,15 +6,14 @@
  * writes the ranked table as CSV, `--out FILE` writes to a file.
  *
  * `--format jsonl` writes one line per series without the cross-series step, for batches split
- * across machines; `echolot fdr` merges such parts (fdr.ts).
+ * across machines; `echolot fdr` merges such parts (fdr.ts). The per-series stage runs in worker
+ * threads (`--workers N`, default every core; parallel.ts) with the same results for any N.
  */
-import { batchCheck, seriesResult } from "../core";
+import { batchOfResults, parseTestKind, resolveAlpha } from "../core";
 import { selectRanked, rankedBatchRows } from "../report/batchOrder";
 import { batchText } from "../report/batchText";
 import { batchCsv } from "../report/rankedCsv";
-import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { readManySeries } from "./input";
 import { batchJson } from "./jsonBatch";
 import {
   formatOption,
@@ -26,6 +25,7 @@ import {
   selectionOption,
   type ParsedCommand,
 } from "./options";
+import { eachSeriesOf } from "./parallel";
 import { deliver, deliverRanked } from "./rankedOutput";
 
 export const BATCH_OPTIONS = [
@@ -35,6 +35,7 @@ export const BATCH_OPTIONS = [
   "json",
   "format",
   ...RANKED_OPTIONS,
+  "workers",
 ];
 
 export async function runBatch({ files, values }: ParsedCommand): Promise<string> {
@@ -51,12 +52,18 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
     );
   }
   const options = lagOptionsFrom(values);
-  const many = await readManySeries(readingFrom(file, values), values);
+  // Options every series shares are refused here, once, not in each worker.
+  resolveAlpha(options.alpha);
+  parseTestKind(options.testKind);
+  // The per-series stage in worker threads; the cross-series step once, here, in series order.
+  const { many, results } = await eachSeriesOf(
+    file,
+    values,
+    { kind: "batch", options },
+    "checking",
+  );
   if (format === "jsonl") {
-    const lines: string[] = [];
-    many.series.forEach((series, i) =>
-      lines.push(JSON.stringify(seriesResult(series, i, options))),
-    );
+    const lines = results.map((r) => JSON.stringify(r));
     return deliver(lines.join("\n"), values, [file], {
       source: many.source,
       rows: lines.length,
@@ -65,7 +72,7 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
   }
   let result;
   try {
-    result = batchCheck(many.series, options);
+    result = batchOfResults(results);
   } catch (error) {
     const left = many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ");
     if (left !== "" && error instanceof Error) error.message += ` (not analysed: ${left})`;

@@ -27,6 +27,7 @@ import {
   type Table,
 } from "../core";
 import { UsageError } from "./errors";
+import { progressLine } from "./progress";
 import { decimalOption, delimiterOption, gapWordsOption, type OptionValues } from "./options";
 
 /** How a file is to be read, from the command line. */
@@ -173,12 +174,14 @@ export async function streamRecords(
   const parser = parse(csvParseOptions(dialect));
   const feeding = pipeline(Readable.from(bytes()), parser);
   let line = 1;
-  const progress = progressLine(reading.origin);
+  const progress = progressLine();
   try {
     for await (const record of parser as AsyncIterable<string[]>) {
       sink(record, line);
       line += 1 + extraLines(record);
-      if ((line & 0xfffff) === 0) progress.show(line);
+      if ((line & 0xfffff) === 0) {
+        progress.show(`reading ${reading.origin}: line ${line.toLocaleString("en")}`);
+      }
     }
     await feeding;
     progress.done();
@@ -195,30 +198,6 @@ export async function streamRecords(
     throw error;
   }
   return dialect;
-}
-
-/**
- * A progress line on stderr for long reads, only when stderr is a terminal (never in a pipe or a
- * log): redrawn at most once a second, erased when the file is read.
- */
-function progressLine(origin: string): { show(line: number): void; done(): void } {
-  const tty = process.stderr.isTTY === true;
-  const started = Date.now();
-  let last = started;
-  let shown = false;
-  return {
-    show(line) {
-      const now = Date.now();
-      if (!tty || now - last < 1000) return;
-      last = now;
-      shown = true;
-      const seconds = Math.round((now - started) / 1000);
-      process.stderr.write(`\rreading ${origin}: line ${line.toLocaleString("en")} (${seconds} s)`);
-    },
-    done() {
-      if (shown) process.stderr.write("\r\x1b[K");
-    },
-  };
 }
 
 /** The rules of the file's cells: its decimal mark, percent cells, gap words. */

@@ -91,8 +91,34 @@ function longColumns(
   return { id, time, value };
 }
 
+/**
+ * The series of a file handed out one at a time: in long format each id's series is made only
+ * when it is taken, so a batch of a million ids never holds a million series at once.
+ */
+export interface SeriesStream {
+  /** The series, to be iterated once. */
+  readonly series: Iterable<Series>;
+  /** How many series there are at most (columns or ids), for progress lines. */
+  readonly total: number;
+  /** The column of each series, in the same order (wide format only). */
+  readonly columns?: readonly TableColumn[];
+  /** Columns or ids not analysed, each with why: complete once `series` has been iterated. */
+  readonly notAnalysed: readonly { readonly name: string; readonly reason: string }[];
+  /** One line on what was read. */
+  readonly source: string;
+}
+
 /** Every series of a file: one per column (wide), or one per id with --id/--time/--value (long). */
 export async function readManySeries(reading: Reading, values: OptionValues): Promise<ManySeries> {
+  const stream = await streamManySeries(reading, values);
+  return { ...stream, series: Array.from(stream.series) };
+}
+
+/** As `readManySeries`, the series handed out one at a time. */
+export async function streamManySeries(
+  reading: Reading,
+  values: OptionValues,
+): Promise<SeriesStream> {
   const long = longColumns(values);
   if (long !== undefined) {
     if (!reading.header)
@@ -100,28 +126,34 @@ export async function readManySeries(reading: Reading, values: OptionValues): Pr
         "long format names its columns: it needs the header row, so --no-header does not apply",
       );
     let builder: LongBuilder | undefined;
-    await streamRecords(reading, (dialect) => {
+    await streamRecords(reading, (dialect, expectedRows) => {
       builder = new LongBuilder({
         origin: reading.origin,
         columns: long,
         cells: cellRulesOf(reading, dialect),
         words: CLI_WORDS,
+        ...(expectedRows === undefined ? {} : { expectedRows }),
       });
       return (record, line) => (builder as LongBuilder).push(record, line);
     });
-    const result = (builder as unknown as LongBuilder).finish();
+    const result = (builder as unknown as LongBuilder).finishStreaming();
     const { calendar, names } = result;
     const filled =
       calendar.filled === 0
         ? "no missing periods"
         : `${calendar.filled} missing period${calendar.filled === 1 ? "" : "s"} read as gaps`;
+    const notAnalysed: { name: string; reason: string }[] = [];
+    function* series(): Generator<Series> {
+      yield* result.series;
+      for (const n of result.notAnalysed) {
+        notAnalysed.push({ name: `${names.id} "${n.label}"`, reason: n.reason });
+      }
+    }
     return {
-      series: result.series,
-      notAnalysed: result.notAnalysed.map((n) => ({
-        name: `${names.id} "${n.label}"`,
-        reason: n.reason,
-      })),
-      source: `${reading.origin}: long format, ${result.rows} rows, ${result.series.length + result.notAnalysed.length} ids in "${names.id}", values "${names.value}", times "${names.time}" ${calendarName(calendar)} (${filled})`,
+      series: series(),
+      total: result.ids,
+      notAnalysed,
+      source: `${reading.origin}: long format, ${result.rows} rows, ${result.ids} ids in "${names.id}", values "${names.value}", times "${names.time}" ${calendarName(calendar)} (${filled})`,
     };
   }
   const table = await readTable(reading);
@@ -143,6 +175,7 @@ export async function readManySeries(reading: Reading, values: OptionValues): Pr
   }
   return {
     series,
+    total: series.length,
     columns: kept,
     notAnalysed,
     source: `${reading.origin}: ${table.columns.length} column${table.columns.length === 1 ? "" : "s"}, ${series.length} analysed`,
@@ -150,6 +183,6 @@ export async function readManySeries(reading: Reading, values: OptionValues): Pr
 }
 
 /** The lines listing what was not analysed, for the end of a text report. */
-export function notAnalysedLines(many: ManySeries): string[] {
+export function notAnalysedLines(many: Pick<ManySeries, "notAnalysed">): string[] {
   return many.notAnalysed.map((n) => `not analysed: ${n.name}: ${n.reason}`);
 }

@@ -16,6 +16,7 @@ import { runWorkbook, WORKBOOK_OPTIONS } from "./workbook";
 import { UsageError } from "./errors";
 import { commandHelp, mainHelp } from "./help";
 import { parseCommand, type ParsedCommand } from "./options";
+import { isSeriesWorker, serveSeriesTasks } from "./parallel";
 import { writeStdout } from "./output";
 import { ECHOLOT_VERSION } from "./version";
 
@@ -88,6 +89,11 @@ export async function main(argv: readonly string[]): Promise<number> {
   }
 }
 
-void main(process.argv.slice(2)).then((status) => {
-  process.exitCode = status;
-});
+// The same file runs the batch workers (parallel.ts): in a worker thread it serves series tasks.
+if (isSeriesWorker()) {
+  serveSeriesTasks();
+} else {
+  void main(process.argv.slice(2)).then((status) => {
+    process.exitCode = status;
+  });
+}

@@ -47,6 +47,7 @@ const OPTIONS: Readonly<Record<string, Spec>> = {
   id: { type: "string", value: "COL" },
   time: { type: "string", value: "COL" },
   value: { type: "string", value: "COL" },
+  workers: { type: "string", value: "N" },
 };
 
 /** The options that say how a file is read, taken by every command that reads one. */

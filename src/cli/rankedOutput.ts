@@ -42,7 +42,7 @@ export interface RankedOutputs {
 /** Writes the chosen output of batch or audit, with the line on what was read. */
 export function deliverRanked(
   format: "text" | "json" | "csv",
-  many: ManySeries,
+  many: Pick<ManySeries, "source" | "notAnalysed">,
   file: string,
   values: OptionValues,
   rows: { readonly shown: number; readonly total: number },

@@ -9,7 +9,7 @@
  * thrown. Cost: one audit per series.
  */
 import { batchLabel } from "./batch";
-import { isEcholotError } from "./errors";
+import { invalid, isEcholotError } from "./errors";
 import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
 import { batchNote, lagWord, qPhrase } from "./batchHeadline";
 import { formatNumber, pPhrase } from "./format";
@@ -46,29 +46,57 @@ export interface AuditBatch {
   readonly biasFlaggedFdr: number;
 }
 
+/** One item's audit before the cross-item step: the per-series stage, run anywhere. */
+export interface AuditBatchEntry {
+  readonly label: string;
+  readonly audit: ForecastAudit | null;
+  readonly problem: string;
+}
+
+/** The audit of one series of a batch; `index` names an unlabelled series. */
+export function auditEntry(
+  series: Series,
+  index: number,
+  options: ForecastAuditOptions,
+): AuditBatchEntry {
+  const label = batchLabel(series, index);
+  try {
+    return { label, audit: forecastAudit(series, options), problem: "" };
+  } catch (error) {
+    if (!isEcholotError(error)) throw error;
+    return { label, audit: null, problem: error.message };
+  }
+}
+
 export function auditBatch(
   seriesList: readonly Series[],
   options: ForecastAuditOptions,
 ): AuditBatch {
   const alpha = resolveAlpha(options.alpha);
-  let firstRefusal: unknown;
-  const audited = seriesList.map((series, index) => {
-    const label = batchLabel(series, index);
-    try {
-      return { label, audit: forecastAudit(series, options), problem: "" };
-    } catch (error) {
-      if (!isEcholotError(error)) throw error;
-      firstRefusal ??= error;
-      return { label, audit: null, problem: error.message };
-    }
-  });
-  if (audited.every((item) => item.audit === null)) throw firstRefusal;
-  const dependenceP = audited.map((item) => item.audit?.levels.jointP.p ?? NaN);
-  const biasP = audited.map((item) => item.audit?.bias.p ?? NaN);
+  const entries = seriesList.map((series, index) => auditEntry(series, index, options));
+  // When no item can be audited, the first one's refusal is thrown as it was (its kind too).
+  const first = seriesList[0];
+  if (first !== undefined && entries.every((entry) => entry.audit === null)) {
+    forecastAudit(first, options);
+  }
+  return auditBatchOf(entries, alpha);
+}
+
+/**
+ * The cross-item step over the entries, in their order: q-values of the dependence and the bias
+ * tests across the items audited, and the counts. When no entry was audited, it refuses with the
+ * first one's reason.
+ */
+export function auditBatchOf(entries: readonly AuditBatchEntry[], alpha: number): AuditBatch {
+  if (entries.every((entry) => entry.audit === null)) {
+    invalid(entries[0]?.problem ?? "there are no series to audit");
+  }
+  const dependenceP = entries.map((item) => item.audit?.levels.jointP.p ?? NaN);
+  const biasP = entries.map((item) => item.audit?.bias.p ?? NaN);
   const dependenceQ = benjaminiHochberg(dependenceP);
   const biasQ = benjaminiHochberg(biasP);
-  const analysed = audited.filter((item) => item.audit !== null).length;
-  const items = audited.map((item, i) => {
+  const analysed = entries.filter((item) => item.audit !== null).length;
+  const items = entries.map((item, i) => {
     const dependenceQValue = dependenceQ[i] as number;
     const biasQValue = biasQ[i] as number;
     const step = { qValue: dependenceQValue, biasQValue, alpha, analysed };

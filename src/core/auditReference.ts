@@ -40,6 +40,7 @@ import {
   SMALLEST_PERMUTATION_ALPHA,
 } from "./verdictReference";
 import { sidakAdjust, sidakLevel } from "./multiplicity";
+import { countAtLeast } from "./ranks";
 import { SeedHash } from "./seededDraws";
 
 export interface AuditReferenceInput {
@@ -259,13 +260,6 @@ function countTested(pairs: ArrayLike<number>, h: number, K: number): number {
   let tested = 0;
   for (let k = h; k <= K; k++) if ((pairs[k] as number) > 0) tested++;
   return tested;
-}
-
-/** #{b : values[b] ≥ x}, the observed (index 0) included. */
-function countAtLeast(values: Float64Array, x: number): number {
-  let count = 0;
-  for (let b = 0; b < values.length; b++) if ((values[b] as number) >= x) count++;
-  return count;
 }
 
 const NORMAL_LIMIT_DRAWS = 19_999;

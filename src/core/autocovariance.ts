@@ -233,9 +233,15 @@ export interface Autocorrelation {
 /**
  * Autocovariance and autocorrelation of a series to lag `maxLag` (assumed already validated,
  * 0 ≤ maxLag < series length). Refuses a constant series: its autocorrelation is undefined.
+ * `into`: an array of the series' length the caller gives up for the deviations (centre.ts), so
+ * that a series the caller made (the squared deviations) is centred where it lies.
  */
-export function autocorrelation(series: Series, maxLag: number): Autocorrelation {
-  const { n, mean, deviations, sumSquares, scale } = centre(series);
+export function autocorrelation(
+  series: Series,
+  maxLag: number,
+  into?: Float64Array,
+): Autocorrelation {
+  const { n, mean, deviations, sumSquares, scale } = centre(series, into);
   if (!(sumSquares > 0)) {
     invalid(
       `${seriesName(series.label)} is constant (every value is ${mean}): its autocorrelation is undefined`,

@@ -180,3 +180,20 @@ export function mergeSeriesResults(results: readonly SeriesResult[]): BatchCheck
   const sorted = results.slice().sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   return combineResults(sorted, first.alpha);
 }
+
+/**
+ * The whole batch from its series' results in the order given (the same figures as `batchCheck`
+ * on the same series, row for row): the step that runs once, on one thread, after the per-series
+ * stage ran anywhere (the CLI's worker threads). As `batchCheck`, it needs two series at least,
+ * and when no series could be analysed it refuses with the first one's reason.
+ */
+export function batchOfResults(results: readonly SeriesResult[]): BatchCheck {
+  if (results.length < 2) {
+    invalid(
+      `a batch check needs at least 2 series (one per column); got ${results.length}: for a single series use the noise check`,
+    );
+  }
+  const first = results[0] as SeriesResult;
+  if (results.every((r) => r.verdict === null)) invalid(first.reason);
+  return combineResults(results, first.alpha);
+}

@@ -14,6 +14,11 @@
  * (sums.ts); a series without gaps skips the presence test.
  * Gaps contribute d_t = 0, so every lag sum over d runs over the available pairs only. O(n).
  *
+ * Memory: the deviations take a fresh array of the series' length, or `into` when the caller gives
+ * one up — the series' own values among them (a series the caller made and no longer needs, such
+ * as the squared deviations): every value is read before its place is written, and the result is
+ * the same, bit for bit, as with a fresh array.
+ *
  * Extreme magnitudes: when the root-mean-square deviation lies outside 2^±200 (about 1e±60), the
  * deviations are divided by a power of two (exact) so that their squares and fourth powers
  * neither overflow nor sink into the subnormal range; `scale` says by how much. Correlations,
@@ -103,14 +108,18 @@ function meanOf(series: Series): number {
   return rough + shiftedSum(series, rough) / n;
 }
 
-export function centre(series: Series): Centred {
+export function centre(series: Series, into?: Float64Array): Centred {
   const { values, present, count: n } = series;
   if (!(n >= 1)) tooShort("the series has no values");
   let mean = meanOf(series);
 
   const length = values.length;
   const gapFree = series.gaps === 0;
-  const deviations = new Float64Array(length);
+  const deviations = into ?? new Float64Array(length);
+  // A fresh array is zero-filled; a given one must read 0 at the gaps too.
+  if (into !== undefined && !gapFree) {
+    for (let t = 0; t < length; t++) if (present[t] !== 1) deviations[t] = 0;
+  }
   const squares = new CompensatedSum();
   const sums = new CompensatedSum();
   for (let from = 0; from < length; from += BLOCK) {

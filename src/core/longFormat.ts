@@ -36,6 +36,8 @@ export interface LongOptions {
   readonly columns: LongColumns;
   readonly cells?: CellRules;
   readonly words: OptionWords;
+  /** About how many rows to expect (from the file size), so the row arrays rarely grow. */
+  readonly expectedRows?: number;
 }
 
 export interface Calendar {
@@ -54,6 +56,21 @@ export interface LongTable {
   readonly calendar: Calendar;
   readonly rows: number;
   /** The header names of the three columns. */
+  readonly names: LongColumns;
+}
+
+/**
+ * The long table with its series made one at a time, as they are consumed, so a million ids never
+ * hold a million series at once. `notAnalysed` fills as the series are made; it is complete when
+ * `series` has been iterated to its end (once).
+ */
+export interface LongSeriesStream {
+  readonly series: Iterable<Series>;
+  /** Ids in the file (analysed or not). */
+  readonly ids: number;
+  readonly notAnalysed: readonly { readonly label: string; readonly reason: string }[];
+  readonly calendar: Calendar;
+  readonly rows: number;
   readonly names: LongColumns;
 }
 
@@ -94,16 +111,21 @@ export class LongBuilder {
   private names: LongColumns | undefined;
   private readonly idIndex = new Map<string, number>();
   private readonly ids: string[] = [];
-  private readonly idOf = new GrowableNumbers();
-  private readonly times = new GrowableNumbers();
-  private readonly values = new GrowableNumbers();
-  private readonly lines = new GrowableNumbers();
+  private readonly idOf;
+  private readonly times;
+  private readonly values;
+  private readonly lines;
   private readonly offenders = new Map<number, Offender>();
   private timeKind: "date" | "number" | undefined;
   private width = 0;
 
   constructor(private readonly options: LongOptions) {
     this.reader = cellReader(options.cells ?? {});
+    const capacity = options.expectedRows;
+    this.idOf = new GrowableNumbers(capacity);
+    this.times = new GrowableNumbers(capacity);
+    this.values = new GrowableNumbers(capacity);
+    this.lines = new GrowableNumbers(capacity);
   }
 
   push(record: readonly string[], line: number): void {
@@ -179,7 +201,20 @@ export class LongBuilder {
     return key;
   }
 
+  /** Every series at once (see `finishStreaming` for one at a time). */
   finish(): LongTable {
+    const stream = this.finishStreaming();
+    const series = Array.from(stream.series);
+    const { notAnalysed, calendar, rows, names } = stream;
+    return { series, notAnalysed, calendar, rows, names };
+  }
+
+  /**
+   * The table checked whole (calendar, duplicates, regularity: every refusal comes before the
+   * first series), with the series made as they are consumed. Once the last series is made, the
+   * rows are let go: call it once.
+   */
+  finishStreaming(): LongSeriesStream {
     const origin = this.options.origin;
     if (this.columns === undefined || this.names === undefined) {
       invalid(`${origin} is empty: the first line must hold the column names`);
@@ -211,11 +246,14 @@ export class LongBuilder {
     }
 
     // Group by id (counting sort keeps the file order within an id), then order by time.
+    // A comparator made outside this function, so no closure here holds `times` (the generator
+    // below lets the rows go when it is done).
+    const earlier = byTime(times);
     const { order, starts } = groupById(idOf, this.ids.length);
     let step = 0;
     for (let k = 0; k < this.ids.length; k++) {
       const segment = order.subarray(starts[k], starts[k + 1]);
-      segment.sort((a, b) => (times[a] as number) - (times[b] as number));
+      segment.sort(earlier);
       for (let j = 1; j < segment.length; j++) {
         const a = segment[j - 1] as number;
         const b = segment[j] as number;
@@ -231,12 +269,9 @@ export class LongBuilder {
     }
     if (step === 0) step = 1;
 
-    const series: Series[] = [];
-    const notAnalysed: { label: string; reason: string }[] = [];
     let filled = 0;
     let positions = 0;
     for (let k = 0; k < this.ids.length; k++) {
-      const label = this.ids[k] as string;
       const segment = order.subarray(starts[k], starts[k + 1]);
       const first = times[segment[0] as number] as number;
       const last = times[segment[segment.length - 1] as number] as number;
@@ -248,28 +283,68 @@ export class LongBuilder {
         );
       }
       filled += length - segment.length;
-      const offender = this.offenders.get(k);
-      if (offender !== undefined) {
-        const where = `line ${offender.line}, column ${this.columns.value + 1} ("${this.names.value}") of ${origin}`;
-        notAnalysed.push({
-          label,
-          reason: cellRefusal(where, offender.text, (t) =>
-            textCellHint(t, this.options.cells ?? {}, this.options.words),
-          ),
-        });
-        continue;
-      }
-      const values = new Float64Array(length).fill(NaN);
-      for (const row of segment) {
-        values[((times[row] as number) - first) / step] = this.values.at(row);
-      }
-      try {
-        series.push(seriesFromColumn(values, label));
-      } catch (error) {
-        notAnalysed.push({ label, reason: (error as Error).message });
-      }
     }
-    return { series, notAnalysed, calendar: { unit, step, filled }, rows, names: this.names };
+
+    const notAnalysed: { label: string; reason: string }[] = [];
+    const { columns, names, ids, offenders } = this;
+    const cells = this.options.cells ?? {};
+    const words = this.options.words;
+    // The rows, held until the last series is made and then let go (with the builder's own
+    // arrays), so that what follows the series (the cross-series step, the output) does not
+    // carry four numbers a row.
+    let held: { order: Uint32Array; starts: Float64Array; times: Float64Array } | undefined = {
+      order,
+      starts,
+      times,
+    };
+    const values = this.values;
+    const release = () => this.releaseRows();
+    function* series(): Generator<Series> {
+      for (let k = 0; k < ids.length; k++) {
+        const label = ids[k] as string;
+        const offender = offenders.get(k);
+        if (offender !== undefined) {
+          const where = `line ${offender.line}, column ${columns.value + 1} ("${names.value}") of ${origin}`;
+          notAnalysed.push({
+            label,
+            reason: cellRefusal(where, offender.text, (t) => textCellHint(t, cells, words)),
+          });
+          continue;
+        }
+        const rows = held as NonNullable<typeof held>;
+        const segment = rows.order.subarray(rows.starts[k], rows.starts[k + 1]);
+        const first = rows.times[segment[0] as number] as number;
+        const last = rows.times[segment[segment.length - 1] as number] as number;
+        const kept = new Float64Array((last - first) / step + 1).fill(NaN);
+        for (const row of segment) {
+          kept[((rows.times[row] as number) - first) / step] = values.at(row);
+        }
+        let made: Series;
+        try {
+          made = seriesFromColumn(kept, label);
+        } catch (error) {
+          notAnalysed.push({ label, reason: (error as Error).message });
+          continue;
+        }
+        yield made;
+      }
+      held = undefined;
+      release();
+    }
+    return {
+      series: series(),
+      ids: ids.length,
+      notAnalysed,
+      calendar: { unit, step, filled },
+      rows,
+      names,
+    };
+  }
+
+  /** Lets go of the rows once every series has been made: the builder is spent. */
+  private releaseRows(): void {
+    for (const numbers of [this.idOf, this.times, this.values, this.lines]) numbers.release();
+    this.idIndex.clear();
   }
 
   private timeText(key: number, unit: Calendar["unit"]): string {
@@ -280,8 +355,14 @@ export class LongBuilder {
   }
 }
 
+/** Orders row indices by their time. */
+function byTime(times: Float64Array): (a: number, b: number) => number {
+  return (a, b) => (times[a] as number) - (times[b] as number);
+}
+
 /** Day numbers when every time is a yyyymmdd date, else undefined. */
 function yyyymmddTimes(times: Float64Array): Float64Array | undefined {
+  if (times.length > 0 && yyyymmddDay(times[0] as number) === undefined) return undefined;
   const days = new Float64Array(times.length);
   for (let i = 0; i < times.length; i++) {
     const day = yyyymmddDay(times[i] as number);

@@ -8,9 +8,12 @@ import { centre } from "./centre";
 import { invalid, seriesName } from "./errors";
 import type { Series } from "./types";
 
-/** The squares are written over the deviations (a fresh array of centre's), so one array serves. */
-function squaredDeviationSeries(series: Series): Series {
-  const { deviations: values } = centre(series);
+/**
+ * The squares are written over the deviations (a fresh array of centre's, or the caller's, given
+ * up), and later centred where they lie, so one array of the series' length serves throughout.
+ */
+function squaredDeviationSeries(series: Series, deviations?: Float64Array): Series {
+  const values = deviations ?? centre(series).deviations;
   for (let t = 0; t < values.length; t++) {
     const d = values[t] as number;
     values[t] = series.present[t] === 1 ? d * d : NaN;
@@ -18,10 +21,18 @@ function squaredDeviationSeries(series: Series): Series {
   return { ...series, values };
 }
 
-export function squaredDeviationCorrelation(series: Series, maxLag: number): Autocorrelation {
-  const squares = squaredDeviationSeries(series);
+/**
+ * `deviations`: the series' deviations from `centre(series)`, when the caller has them and gives
+ * them up (they are overwritten); otherwise they are computed here.
+ */
+export function squaredDeviationCorrelation(
+  series: Series,
+  maxLag: number,
+  deviations?: Float64Array,
+): Autocorrelation {
+  const squares = squaredDeviationSeries(series, deviations);
   try {
-    return autocorrelation(squares, maxLag);
+    return autocorrelation(squares, maxLag, squares.values);
   } catch (error) {
     invalid(
       `the squared deviations of ${seriesName(series.label)} are constant (every value is equally far from the mean), so their autocorrelation is undefined`,

@@ -57,7 +57,7 @@ import {
 } from "./distributions";
 import { lagStatistics, lagStatisticsWork, type LagStatisticsSpec } from "./lagStatistics";
 import { sidakAdjust, sidakLevel } from "./multiplicity";
-import { kthLargest, kthSmallest, upperCounts } from "./ranks";
+import { countAtLeast, kthLargestOfRest, kthSmallest, upperCountsSorted } from "./ranks";
 import { type DrawStream, SeedHash } from "./seededDraws";
 
 export type ReferenceKind = "permutation" | "normal-limit" | "monte-carlo";
@@ -249,7 +249,7 @@ function permutationLevels(input: VerdictReferenceInput, stream: DrawStream): Se
   }
   const common = commonLevel([q, largest], alpha);
   const [criticalQ, outerLevel] = common.criticals as [number, number];
-  const u0 = upperCounts(q)[0] as number;
+  const u0 = countAtLeast(q, q[0] as number);
   const base = { p: u0 / (B + 1), reference: "permutation" as const, draws: B, bound: false };
   const jointP = refineJointP(base, u0 - 1, q[0] as number, alpha, () => {
     shuffle();
@@ -304,15 +304,19 @@ export function commonLevel(
 ): { level: number; criticals: number[] } {
   const size = (columns[0] as Float64Array).length;
   const s = new Float64Array(size).fill(Infinity);
-  for (const column of columns) {
-    const counts = upperCounts(column);
+  // Each column sorted once, for its ranks and for its critical value.
+  const sorted = columns.map((column) => column.slice().sort());
+  columns.forEach((column, c) => {
+    const counts = upperCountsSorted(column, sorted[c] as Float64Array);
     for (let b = 0; b < size; b++) s[b] = Math.min(s[b] as number, counts[b] as number);
-  }
+  });
   const allowed = Math.floor(alpha * size + 1e-9);
   const aCount = allowed >= 1 ? kthSmallest(s, allowed, 1) : 0;
   return {
     level: Number.isFinite(aCount) ? aCount / size : 1,
-    criticals: columns.map((column) => kthLargest(column, aCount - 1, 1)),
+    criticals: columns.map((column, c) =>
+      kthLargestOfRest(column, sorted[c] as Float64Array, aCount - 1),
+    ),
   };
 }
 

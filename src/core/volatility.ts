@@ -58,11 +58,14 @@ export function volatilityCheck(series: Series, options: VolatilityOptions = {})
   const n = series.count;
   const alpha = resolveAlpha(options.alpha);
   const q = resolveLagCountOrDefault("lags", options.lags, n);
-  const { rows, rSquared } = engleRegression(series, q);
+  // One array of deviations for both tests: Engle's regression reads it, then the squares are
+  // written over it (the check then needs one array of the series' length, not three).
+  const { deviations } = centre(series);
+  const { rows, rSquared } = engleRegression(series, q, deviations);
   const lm = rows * rSquared;
   const p = chiSquareUpperTail(lm, q);
 
-  const squares = squaredDeviationCorrelation(series, q);
+  const squares = squaredDeviationCorrelation(series, q, deviations);
   const mcleodLi = jointTestAt(
     "squares",
     cumulativeJointTest({
@@ -98,8 +101,11 @@ const BLOCK_ROWS = 8192;
  * Van Loan §5.3), so a series of any length needs memory for one block only. The residual sums
  * of squares of the blocks add up: their rotated parts are orthogonal to what is carried.
  */
-function engleRegression(series: Series, q: number): { rows: number; rSquared: number } {
-  const { deviations } = centre(series);
+function engleRegression(
+  series: Series,
+  q: number,
+  deviations: Float64Array,
+): { rows: number; rSquared: number } {
   const { present } = series;
   const length = present.length;
   const columns = q + 1;
