@@ -1,5 +1,7 @@
 import { existsSync } from "node:fs";
+import { availableParallelism } from "node:os";
 import { configDefaults, defineConfig } from "vitest/config";
+import HeavyFirst from "./test/runner/heavyFirst";
 
 /**
  * The browser tests drive Debian's Chromium. They always run in CI (CI=true; a missing Chromium
@@ -19,8 +21,16 @@ export default defineConfig({
   test: {
     include: ["test/**/*.test.ts"],
     exclude: browserTests ? configDefaults.exclude : [...configDefaults.exclude, "test/browser/**"],
-    testTimeout: 60_000,
-    hookTimeout: 120_000,
-    reporters: ["default"],
+    // The builds are made once by `npm test` before vitest starts; this checks they are current.
+    globalSetup: ["test/runner/freshBuilds.ts"],
+    // One worker per core: the main process mostly waits, and vitest's default (cores − 1) would
+    // run the files one after another on a 2-core machine.
+    maxWorkers: availableParallelism(),
+    sequence: { sequencer: HeavyFirst },
+    // Sized for a 2-core machine that other work keeps busy (several times slower than idle): the
+    // longest ordinary test takes about 10 s there. Heavier tests state their own timeouts.
+    testTimeout: 120_000,
+    hookTimeout: 240_000,
+    reporters: ["default", "./test/runner/slowestFiles.ts"],
   },
 });

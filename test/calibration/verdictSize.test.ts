@@ -11,7 +11,7 @@
  */
 import { describe, it } from "vitest";
 import { sizeOf, type NoiseLaw } from "../../src/sim/calibration";
-import { expectShareWithin } from "./helpers";
+import { expectShareWithin, SIMULATION_TIMEOUT } from "./helpers";
 
 const REPLICATIONS = 2500;
 
@@ -41,9 +41,13 @@ describe("noiseCheck(pure noise): structure within [4%, 6%], watch ≤ 5% (2,500
       [104, 103],
       [260, 104],
     ] as const) {
-      it(`noiseCheck(${law} noise, n ${n}) keeps structure at 5% and watch ≤ 5%`, () => {
-        checkCell(n, law, null, seed + (law === "t3" ? 1000 : 0));
-      }, 120_000);
+      it(
+        `noiseCheck(${law} noise, n ${n}) keeps structure at 5% and watch ≤ 5%`,
+        () => {
+          checkCell(n, law, null, seed + (law === "t3" ? 1000 : 0));
+        },
+        SIMULATION_TIMEOUT,
+      );
     }
   }
   for (const [n, seed] of [
@@ -51,9 +55,13 @@ describe("noiseCheck(pure noise): structure within [4%, 6%], watch ≤ 5% (2,500
     [104, 202],
     [260, 203],
   ] as const) {
-    it(`noiseCheck(normal noise, n ${n}, season 12) keeps structure at 5% and watch ≤ 5%`, () => {
-      checkCell(n, "normal", 12, seed);
-    }, 120_000);
+    it(
+      `noiseCheck(normal noise, n ${n}, season 12) keeps structure at 5% and watch ≤ 5%`,
+      () => {
+        checkCell(n, "normal", 12, seed);
+      },
+      SIMULATION_TIMEOUT,
+    );
   }
 });
 
