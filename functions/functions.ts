@@ -286,7 +286,7 @@ export function seriesForecastAudit(
  * @param [season] Periods in one cycle, a whole number from 2; lags season and 2·season are watched. 0 or omitted: none.
  * @param [fittedParams] ARMA parameters fitted to get these residuals, from 0 (default).
  * @param [alpha] Significance level, for the verdicts and the false-discovery rate, between 0 and 1. Default: 0.05.
- * @returns Header, then per column: label, n, Q, df, p, q-value, verdict.
+ * @returns Header, then per column: label, n, Q, df, p, q-value, verdict (structure only when kept after the false-discovery step; biased when the bias check is kept).
  */
 export function seriesBatchCheck(
   block: any[][],
@@ -317,7 +317,16 @@ export function seriesBatchCheck(
         return row(c.label, "", "", "", "", "", `not analysed: ${c.refusal?.message ?? ""}`);
       }
       const r = batch.rows[next++] as BatchRow;
-      return row(r.label, r.n, r.q, r.df, r.p, r.qValue, r.verdict ?? `not analysed: ${r.reason}`);
+      // The word across the batch: structure only when kept by the false-discovery step.
+      return row(
+        r.label,
+        r.n,
+        r.q,
+        r.df,
+        r.p,
+        r.qValue,
+        r.headline?.title ?? `not analysed: ${r.reason}`,
+      );
     });
     return [header, ...body];
   });

@@ -3,9 +3,10 @@
  * beside it — volatility (Engle's LM over the table's lags, McLeod–Li), bias (Newey–West), runs
  * about the median and Jarque–Bera. A side check the data cannot support (say, constant squared
  * deviations) is left out of the text and written as null in the JSON, with its reason. The
- * column analysed is named first, with any column passed over on the way to it.
+ * column analysed is named first, with any column passed over on the way to it; then the headline
+ * (core/headline.ts): when volatility clusters, the table shown is the robust reading.
  */
-import { lagTable } from "../core";
+import { headlineOf, lagTable, needsRobustReading, robustOptions, type Headline } from "../core";
 import { jointSpanText, lagTableText } from "../report";
 import { sideChecks, sideChecksText } from "../report/sideChecksText";
 import { readingFrom } from "./csv";
@@ -36,9 +37,30 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
   );
   const release = () => releaseBetweenSteps(series.count);
   release();
-  const result = lagTable(series, options);
-  const side = sideChecks(series, result, release);
+  const plain = lagTable(series, options);
+  const side = sideChecks(series, plain, release);
+  // When volatility clusters, the headline and the table shown are the robust reading.
+  const robust = needsRobustReading(plain, side.volatility)
+    ? (release(), lagTable(series, robustOptions(options)))
+    : null;
+  const result = robust ?? plain;
+  const headline = headlineOf(plain, robust, side.volatility, side.bias);
   return values.json === true
-    ? toJsonText({ source, ...lagTableJson(result), ...sideChecksJson(side) })
-    : `read: ${source}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
+    ? toJsonText({
+        source,
+        headline: headlineJson(headline),
+        ...lagTableJson(result),
+        ...sideChecksJson(side),
+      })
+    : `read: ${source}\n\n${headlineText(headline)}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
+}
+
+/** The headline first: its title, then every finding that fired, one per line. */
+function headlineText(headline: Headline): string {
+  return [`headline: ${headline.title}`, ...headline.findings.map((f) => `  ${f}`)].join("\n");
+}
+
+function headlineJson(headline: Headline): Record<string, unknown> {
+  const { word, title, reading, switched, biased, volatile, findings, note } = headline;
+  return { word, title, reading, switched, biased, volatile, findings, note };
 }

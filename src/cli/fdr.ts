@@ -7,7 +7,7 @@
  */
 import { createReadStream } from "node:fs";
 import { createInterface } from "node:readline";
-import { invalid, mergeSeriesResults, TEST_KINDS, type SeriesResult } from "../core";
+import { invalid, mergeSeriesResults, rankedRows, TEST_KINDS, type SeriesResult } from "../core";
 import { batchText } from "../report/batchText";
 import { UsageError } from "./errors";
 import { batchJson, toJsonText } from "./json";
@@ -17,6 +17,15 @@ export const FDR_OPTIONS = ["json", "format"];
 
 const VERDICTS = new Set(["clear", "watch", "structure", "short"]);
 const REFERENCES = new Set(["permutation", "chi-square", "monte-carlo"]);
+const READINGS = new Set(["plain", "robust"]);
+
+/** null, or an object whose named fields are all finite numbers. */
+function figuresOrNull(x: unknown, names: readonly string[]): boolean {
+  if (x === null) return true;
+  if (typeof x !== "object") return false;
+  const o = x as Record<string, unknown>;
+  return names.every((name) => typeof o[name] === "number" && Number.isFinite(o[name]));
+}
 
 function isNumberOrNull(x: unknown): boolean {
   return x === null || (typeof x === "number" && Number.isFinite(x));
@@ -44,11 +53,18 @@ function partLine(text: string, where: string): SeriesResult {
     typeof r.pBound === "boolean" &&
     (r.verdict === null || VERDICTS.has(r.verdict as string)) &&
     typeof r.reason === "string" &&
+    typeof r.finding === "string" &&
+    typeof r.note === "string" &&
+    (r.reading === null || READINGS.has(r.reading as string)) &&
+    typeof r.switched === "boolean" &&
+    (r.plainVerdict === null || VERDICTS.has(r.plainVerdict as string)) &&
+    figuresOrNull(r.volatility, ["lm", "df", "p"]) &&
+    figuresOrNull(r.bias, ["mean", "se", "t", "p"]) &&
     typeof r.alpha === "number" &&
     TEST_KINDS.includes(r.test as never);
   if (!ok) {
     invalid(
-      `${where} lacks a field of echolot batch --format jsonl (id, n, statistic, df, p, reference, draws, pBound, verdict, reason, alpha, test)`,
+      `${where} lacks a field of echolot batch --format jsonl (id, n, statistic, df, p, reference, draws, pBound, verdict, reason, finding, note, reading, switched, plainVerdict, volatility, bias, alpha, test)`,
     );
   }
   return r as unknown as SeriesResult;
@@ -88,19 +104,22 @@ export async function runFdr({ files, values }: ParsedCommand): Promise<string> 
   const results: SeriesResult[] = [];
   for (const part of parts) await readPart(part, results);
   const batch = mergeSeriesResults(results);
-  const key = (q: number) => (Number.isNaN(q) ? Infinity : q);
+  const orNull = (x: number) => (Number.isNaN(x) ? null : x);
   if (format === "json") return toJsonText(batchJson(batch));
   if (format === "jsonl") {
-    const rows = batch.rows.slice().sort((a, b) => key(a.qValue) - key(b.qValue));
-    return rows
+    return rankedRows(batch)
       .map((row) =>
         JSON.stringify({
           id: row.label,
           n: row.n,
-          p: Number.isNaN(row.p) ? null : row.p,
-          qValue: Number.isNaN(row.qValue) ? null : row.qValue,
-          verdict: row.verdict,
-          reason: row.reason,
+          p: orNull(row.p),
+          qValue: orNull(row.qValue),
+          kept: row.kept,
+          biasP: orNull(row.biasP),
+          biasQValue: orNull(row.biasQValue),
+          word: row.headline?.word ?? null,
+          title: row.headline?.title ?? null,
+          finding: row.headline?.finding ?? row.reason,
         }),
       )
       .join("\n");

@@ -11,7 +11,7 @@ import type {
   ReferencedP,
   VerdictLevels,
 } from "../core";
-import { isPValueBound } from "../core";
+import { isPValueBound, rankedAuditItems, rankedRows } from "../core";
 import type { SideChecks } from "../report/sideChecksText";
 
 export function lagTableJson(table: LagTable): Record<string, unknown> {
@@ -104,18 +104,29 @@ export function sideChecksJson(side: SideChecks): Record<string, unknown> {
 export function batchJson(batch: BatchCheck): Record<string, unknown> {
   return {
     alpha: batch.alpha,
-    series: batch.rows.map((row) => ({
+    series: rankedRows(batch).map((row) => ({
       label: row.label,
       n: row.n,
       q: row.q,
       df: row.df,
       p: row.p,
       qValue: row.qValue,
+      kept: row.kept,
+      word: row.headline?.word ?? null,
+      title: row.headline?.title ?? null,
+      finding: row.headline?.finding ?? null,
+      reading: row.reading,
+      volatilityP: row.volatilityP,
+      mean: row.mean,
+      biasP: row.biasP,
+      biasQValue: row.biasQValue,
       verdict: row.verdict,
       reason: row.reason,
     })),
     flaggedRaw: batch.flaggedRaw,
     flaggedFdr: batch.flaggedFdr,
+    biasFlaggedRaw: batch.biasFlaggedRaw,
+    biasFlaggedFdr: batch.biasFlaggedFdr,
   };
 }
 
@@ -134,7 +145,7 @@ export function auditJson(
     horizon: options.horizon,
     season: options.season ?? null,
     alpha: batch.alpha,
-    series: batch.items.map((item) => {
+    series: rankedAuditItems(batch).map((item) => {
       const audit = item.audit;
       if (audit === null) {
         return {
@@ -157,6 +168,11 @@ export function auditJson(
         ...referenceFields(audit.levels.jointP),
         pChiSquare: audit.dependenceTest.p,
         qValue: item.dependenceQValue,
+        kept: item.kept,
+        biased: item.biased,
+        word: item.headline?.word ?? null,
+        title: item.headline?.title ?? null,
+        finding: item.headline?.finding ?? null,
         verdict: audit.verdict.word,
         reason: audit.verdict.reason,
         firstLag: audit.dependenceTest.firstLag,

@@ -11,6 +11,9 @@
 import { batchLabel } from "./batch";
 import { isEcholotError } from "./errors";
 import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
+import { batchNote, lagWord, qPhrase } from "./batchHeadline";
+import { formatNumber, pPhrase } from "./format";
+import { biasSentence, composeHeadline, type Headline } from "./headline";
 import { benjaminiHochberg } from "./multiplicity";
 import { resolveAlpha } from "./options";
 import type { Series } from "./types";
@@ -24,6 +27,12 @@ export interface AuditBatchItem {
   /** BH q-values across the items audited (NaN for the others). */
   readonly dependenceQValue: number;
   readonly biasQValue: number;
+  /** The dependence test survives the false-discovery step (q-value ≤ alpha, not short). */
+  readonly kept: boolean;
+  /** The bias test survives its own false-discovery step. */
+  readonly biased: boolean;
+  /** The headline across the audit (batchHeadline.ts rules); null when not audited. */
+  readonly headline: Headline | null;
 }
 
 export interface AuditBatch {
@@ -58,11 +67,13 @@ export function auditBatch(
   const biasP = audited.map((item) => item.audit?.bias.p ?? NaN);
   const dependenceQ = benjaminiHochberg(dependenceP);
   const biasQ = benjaminiHochberg(biasP);
-  const items = audited.map((item, i) => ({
-    ...item,
-    dependenceQValue: dependenceQ[i] as number,
-    biasQValue: biasQ[i] as number,
-  }));
+  const analysed = audited.filter((item) => item.audit !== null).length;
+  const items = audited.map((item, i) => {
+    const dependenceQValue = dependenceQ[i] as number;
+    const biasQValue = biasQ[i] as number;
+    const step = { qValue: dependenceQValue, biasQValue, alpha, analysed };
+    return { ...item, dependenceQValue, biasQValue, ...auditHeadline(item.audit, step) };
+  });
   const count = (values: ArrayLike<number>, pass: (x: number) => boolean) =>
     Array.from(values).filter(pass).length;
   return {
@@ -73,4 +84,44 @@ export function auditBatch(
     biasFlaggedRaw: count(biasP, (p) => p < alpha),
     biasFlaggedFdr: count(biasQ, (q) => q <= alpha),
   };
+}
+
+/**
+ * One audited item's headline under the batch rules (batchHeadline.ts): the dependence word
+ * respects the false-discovery step on the dependence p-values, and the bias is carried when the
+ * bias p-values' own step keeps it.
+ */
+function auditHeadline(
+  audit: ForecastAudit | null,
+  step: { qValue: number; biasQValue: number; alpha: number; analysed: number },
+): { kept: boolean; biased: boolean; headline: Headline | null } {
+  if (audit === null) return { kept: false, biased: false, headline: null };
+  const { alpha, biasQValue } = step;
+  const own = audit.dependence.word;
+  const kept = own !== "short" && step.qValue <= alpha;
+  const jointFigures = `dependence ${pPhrase(audit.levels.jointP.p)}, ${qPhrase(step.qValue)}`;
+  const { word, lagFinding } = lagWord(own, kept, audit.dependence.finding, jointFigures, step);
+  const { bias } = audit;
+  const biased = biasQValue <= alpha;
+  const figures = { mean: bias.mean, se: bias.se, t: bias.tCorrected, p: bias.p };
+  const biasFinding = biased
+    ? biasSentence(figures, `${qPhrase(biasQValue)}: kept by the false-discovery step on bias`, {
+        se: "long-run se",
+        reference: `against t with ${bias.df} df`,
+      })
+    : bias.p < alpha
+      ? `On its own the mean error ${formatNumber(bias.mean, 4)} would count as bias (${pPhrase(bias.p)}), but across ${step.analysed} series the false-discovery step does not keep it (${qPhrase(biasQValue)}).`
+      : null;
+  const headline = composeHeadline({
+    word,
+    lagFinding,
+    note: batchNote(alpha, step.analysed),
+    reading: "plain",
+    switched: false,
+    plainWord: own,
+    volatility: null,
+    biased,
+    biasFinding,
+  });
+  return { kept, biased, headline };
 }

@@ -1,25 +1,31 @@
 /**
- * The batch check: one noise check per series (its verdict and the joint test's p as the verdict
- * uses it: exact, by permutation, for ordinary lengths — verdictReference.ts), and
+ * The batch check: one noise check per series (its verdict and the p of its structure rule — the
+ * joint test and the largest lag as one test, exact by permutation for ordinary lengths:
+ * verdictReference.ts), and
  * Benjamini–Hochberg q-values across the series (Benjamini & Hochberg 1995, JRSS B 57:289–300;
  * multiplicity.ts), so that an auditor with 200 items sees which few to look at without the
  * five-percent false alarms of 200 separate tests.
  *
- * - `flaggedRaw`: series whose joint-test p is below alpha (what 200 separate checks would flag;
+ * - `flaggedRaw`: series whose structure p is below alpha (what 200 separate checks would flag;
  *   among pure-noise series about alpha of them);
  * - `flaggedFdr`: series whose q-value is at most alpha (the BH step-up rule), which keeps the
  *   expected share of false flags among the flagged at most alpha for independent series.
+ * Each series also gets the volatility check (its joint p then comes from the robust reading,
+ * headline.ts) and the bias check, whose p-values get their own Benjamini–Hochberg step; the word
+ * shown per series respects both steps (batchHeadline.ts).
  * A series that cannot be analysed (too few values, constant) keeps its row with the reason and
  * NaN figures, and stays out of the family of p-values; when no series can be analysed, the first
- * refusal is thrown instead. Cost: one noise check (the lag table's verdict, without its
- * per-lag columns) per series.
+ * refusal is thrown instead. Cost per series: one noise check (the lag table's verdict, without
+ * its per-lag columns), a volatility and a bias check, and a second noise check where the
+ * volatility check fires.
  */
-import { invalid, isEcholotError } from "./errors";
-import { noiseCheck } from "./lagTable";
+import { invalid } from "./errors";
+import { analyseSeries, type SeriesResult } from "./batchParts";
+import { batchRowHeadline } from "./batchHeadline";
+import type { Headline, Reading } from "./headline";
 import { benjaminiHochberg } from "./multiplicity";
 import { resolveAlpha, type LagOptions } from "./options";
 import type { Series, VerdictWord } from "./types";
-import { isPValueBound } from "./distributions";
 import type { ReferencedP } from "./verdictReference";
 
 export interface BatchRow {
@@ -28,7 +34,10 @@ export interface BatchRow {
   /** Joint-test statistic Q, df and p (NaN when the series could not be analysed). */
   readonly q: number;
   readonly df: number;
-  /** The joint test's p as the verdict uses it (permutation for ordinary lengths; χ² beyond). */
+  /**
+   * The structure p in the reading used: the joint test and the largest lag as one test, the p
+   * the false-discovery step uses (verdictReference.ts).
+   */
   readonly p: number;
   /** Where p comes from and how many draws are behind it (null when not analysed). */
   readonly reference: ReferencedP["reference"] | null;
@@ -39,10 +48,22 @@ export interface BatchRow {
   readonly qValue: number;
   /** The q-value rests on a p that is only a bound, so it is itself an upper bound. */
   readonly qValueBound: boolean;
-  /** The noise check's verdict; null when the series could not be analysed. */
+  /** The series' own verdict (before the false-discovery step); null when not analysed. */
   readonly verdict: VerdictWord | null;
   /** The verdict's reason, or why the series could not be analysed. */
   readonly reason: string;
+  /** Robust when the volatility check fired; null when not analysed. */
+  readonly reading: Reading | null;
+  /** Engle's LM p of the squared deviations (NaN when not computed). */
+  readonly volatilityP: number;
+  /** The mean and its bias-check p (NaN when not computed), and the bias q-value. */
+  readonly mean: number;
+  readonly biasP: number;
+  readonly biasQValue: number;
+  /** Kept by the false-discovery step on the joint p: q-value ≤ alpha (and not short). */
+  readonly kept: boolean;
+  /** The headline across the batch (batchHeadline.ts); null when not analysed. */
+  readonly headline: Headline | null;
 }
 
 export interface BatchCheck {
@@ -55,6 +76,9 @@ export interface BatchCheck {
   readonly flaggedFdr: number;
   /** Series with a p-value (the BH family). */
   readonly analysed: number;
+  /** Series whose bias p < alpha, and whose bias q-value ≤ alpha. */
+  readonly biasFlaggedRaw: number;
+  readonly biasFlaggedFdr: number;
 }
 
 /** A series' name among many: its label, or "series i" (counting from 1) when it has none. */
@@ -70,57 +94,64 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
   }
   const alpha = resolveAlpha(options.alpha);
   let firstRefusal: unknown;
-  const partial = seriesList.map((series, index) => {
-    const label = batchLabel(series, index);
-    try {
-      const table = noiseCheck(series, options);
-      const { q, df } = table.joint;
-      const exact = table.levels.jointP;
-      return {
-        label,
-        n: table.n,
-        q,
-        df,
-        p: exact.p,
-        reference: exact.reference,
-        draws: exact.draws,
-        pBound: exact.bound || isPValueBound(exact.p),
-        verdict: table.verdict.word,
-        reason: table.verdict.reason,
-      };
-    } catch (error) {
-      if (!isEcholotError(error)) throw error;
-      firstRefusal ??= error;
-      return {
-        label,
-        n: series.count,
-        q: NaN,
-        df: 0,
-        p: NaN,
-        reference: null,
-        draws: 0,
-        pBound: false,
-        verdict: null,
-        reason: error.message,
-      };
-    }
+  const results = seriesList.map((series, index) => {
+    const { result, refusal } = analyseSeries(series, index, options);
+    if (refusal !== null) firstRefusal ??= refusal;
+    return result;
   });
   // When no series at all can be analysed the options themselves are at fault: say so once.
-  if (partial.every((row) => row.verdict === null)) throw firstRefusal;
-  const qValues = benjaminiHochberg(partial.map((row) => row.p));
-  const qBounds = boundedQValues(partial);
-  const rows: BatchRow[] = partial.map((row, i) => ({
-    ...row,
-    qValue: qValues[i] as number,
-    qValueBound: qBounds[i] as boolean,
-  }));
-  return {
-    alpha,
-    rows,
-    flaggedRaw: rows.filter((row) => row.p < alpha).length,
-    flaggedFdr: rows.filter((row) => row.qValue <= alpha).length,
-    analysed: rows.filter((row) => !Number.isNaN(row.p)).length,
-  };
+  if (results.every((r) => r.verdict === null)) throw firstRefusal;
+  return combineResults(results, alpha);
+}
+
+/**
+ * The cross-series step, shared by the whole batch and the merge of its parts: Benjamini–Hochberg
+ * q-values of the joint p and of the bias p, then each row's headline, in the order given.
+ */
+export function combineResults(results: readonly SeriesResult[], alpha: number): BatchCheck {
+  const pOf = (r: SeriesResult) => r.p ?? NaN;
+  const biasPOf = (r: SeriesResult) => r.bias?.p ?? NaN;
+  const qValues = benjaminiHochberg(results.map(pOf));
+  const biasQValues = benjaminiHochberg(results.map(biasPOf));
+  const qBounds = boundedQValues(results.map((r) => ({ p: pOf(r), pBound: r.pBound })));
+  const analysed = results.filter((r) => r.p !== null).length;
+  const rows: BatchRow[] = results.map((r, i) => {
+    const qValue = qValues[i] as number;
+    const biasQValue = biasQValues[i] as number;
+    const { kept, headline } = batchRowHeadline(r, { qValue, biasQValue, alpha, analysed });
+    return {
+      label: r.id,
+      n: r.n,
+      q: r.statistic ?? NaN,
+      df: r.df ?? 0,
+      p: pOf(r),
+      reference: r.reference,
+      draws: r.draws,
+      pBound: r.pBound,
+      qValue,
+      qValueBound: qBounds[i] as boolean,
+      verdict: r.verdict,
+      reason: r.reason,
+      reading: r.reading,
+      volatilityP: r.volatility?.p ?? NaN,
+      mean: r.bias?.mean ?? NaN,
+      biasP: biasPOf(r),
+      biasQValue,
+      kept,
+      headline,
+    };
+  });
+  let flaggedRaw = 0;
+  let flaggedFdr = 0;
+  let biasFlaggedRaw = 0;
+  let biasFlaggedFdr = 0;
+  for (const row of rows) {
+    if (row.p < alpha) flaggedRaw++;
+    if (row.qValue <= alpha) flaggedFdr++;
+    if (row.biasP < alpha) biasFlaggedRaw++;
+    if (row.biasQValue <= alpha) biasFlaggedFdr++;
+  }
+  return { alpha, rows, flaggedRaw, flaggedFdr, analysed, biasFlaggedRaw, biasFlaggedFdr };
 }
 
 /**

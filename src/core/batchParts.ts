@@ -1,29 +1,32 @@
 /**
- * A batch in parts, for batches that outgrow one machine. Each series' noise check depends on that
- * series alone; only the false-discovery step (Benjamini & Hochberg 1995, JRSS B 57:289–300) needs
- * every p-value. So a batch splits into a per-series stage (`seriesResult`, run on any partition
- * of the series, anywhere) and one merge (`mergeSeriesResults`) that applies Benjamini–Hochberg
- * across all the parts — the same q-values and counts as the whole batch (`batchCheck`), whatever
- * the split.
+ * A batch in parts, for batches that outgrow one machine. Each series' checks depend on that
+ * series alone; only the false-discovery step (Benjamini & Hochberg 1995, JRSS B 57:289–300)
+ * needs every p-value. So a batch splits into a per-series stage (`seriesResult`, run on any
+ * partition of the series, anywhere) and one merge (`mergeSeriesResults`) that applies
+ * Benjamini–Hochberg across all the parts — the same q-values, words and counts as the whole
+ * batch (`batchCheck`), whatever the split.
  *
  * The merged rows are ordered by id (code-unit order), so the merge does not depend on how the
  * series were split or in which order the parts arrive.
  */
-import { batchLabel, boundedQValues, type BatchCheck, type BatchRow } from "./batch";
+import { batchLabel, combineResults, type BatchCheck, type BatchRow } from "./batch";
+import { biasCheck } from "./bias";
 import { isPValueBound } from "./distributions";
-import { invalid, isEcholotError } from "./errors";
+import { invalid, isEcholotError, type EcholotError } from "./errors";
+import { isRobustReading, robustOptions, type Reading } from "./headline";
 import { noiseCheck } from "./lagTable";
-import { benjaminiHochberg } from "./multiplicity";
 import { parseTestKind, resolveAlpha, type LagOptions } from "./options";
 import type { Series, TestKind, VerdictWord } from "./types";
+import { volatilityCheck } from "./volatility";
 
 /** One series' result, without the cross-series step (one line of `batch --format jsonl`). */
 export interface SeriesResult {
   readonly id: string;
   readonly n: number;
-  /** The joint test's statistic, df and p (null when the series could not be analysed). */
+  /** The joint test's statistic and df in the reading used (null when not analysed). */
   readonly statistic: number | null;
   readonly df: number | null;
+  /** The structure p: the joint test and the largest lag as one test (verdictReference.ts). */
   readonly p: number | null;
   /** Which reference p comes from ("permutation", "chi-square", …; null when not analysed). */
   readonly reference: BatchRow["reference"];
@@ -31,45 +34,83 @@ export interface SeriesResult {
   readonly draws: number;
   /** p is only an upper bound (no draw reached the statistic, or the 1e-300 floor). */
   readonly pBound: boolean;
+  /** The series' own verdict in the reading used, before the false-discovery step. */
   readonly verdict: VerdictWord | null;
   /** The verdict's reason, or why the series could not be analysed. */
   readonly reason: string;
+  /** The verdict's finding and note, the reason's two parts ("" when not analysed). */
+  readonly finding: string;
+  readonly note: string;
+  /** Robust when the volatility check fired (headline.ts); null when not analysed. */
+  readonly reading: Reading | null;
+  /** The reading was switched to robust by the volatility check. */
+  readonly switched: boolean;
+  /** The plain reading's word (the same as `verdict` unless switched). */
+  readonly plainVerdict: VerdictWord | null;
+  /** Engle's LM test of the squared deviations over the same K (null when not computed). */
+  readonly volatility: { readonly lm: number; readonly df: number; readonly p: number } | null;
+  /** The bias check's figures (null when not computed). */
+  readonly bias: {
+    readonly mean: number;
+    readonly se: number;
+    readonly t: number;
+    readonly p: number;
+  } | null;
   /** The level the verdict was judged at: every part of one batch must share it. */
   readonly alpha: number;
-  /** The joint test used. */
+  /** The joint test chosen (the robust reading's own test is used where `switched`). */
   readonly test: TestKind;
 }
 
-/** The noise check of one series as a batch part's line; `index` names an unlabelled series. */
-export function seriesResult(
+/** The series' result and, when it could not be analysed, the refusal itself. */
+export function analyseSeries(
   series: Series,
   index: number,
   options: LagOptions = {},
-): SeriesResult {
+): { result: SeriesResult; refusal: EcholotError | null } {
   const id = batchLabel(series, index);
   const alpha = resolveAlpha(options.alpha);
   const test = parseTestKind(options.testKind);
   try {
-    // The same p as the whole batch's (batch.ts): the joint p the verdict uses.
-    const check = noiseCheck(series, options);
-    const exact = check.levels.jointP;
-    return {
+    const plain = noiseCheck(series, options);
+    const volatility = sideFigures(() => {
+      const v = volatilityCheck(series, { lags: plain.maxLag, alpha });
+      return { lm: v.lm, df: v.df, p: v.p };
+    });
+    const bias = sideFigures(() => {
+      const b = biasCheck(series, { alpha });
+      return { mean: b.mean, se: b.se, t: b.t, p: b.p };
+    });
+    const switched = volatility !== null && volatility.p < alpha && !isRobustReading(plain);
+    // The p of the structure rule in the reading the series' own headline uses (headline.ts):
+    // the joint test and the largest lag as one test (verdictReference.ts).
+    const used = switched ? noiseCheck(series, robustOptions(options)) : plain;
+    const exact = used.levels.structureP;
+    const result: SeriesResult = {
       id,
-      n: check.n,
-      statistic: check.joint.q,
-      df: check.joint.df,
+      n: used.n,
+      statistic: used.joint.q,
+      df: used.joint.df,
       p: exact.p,
       reference: exact.reference,
       draws: exact.draws,
       pBound: exact.bound || isPValueBound(exact.p),
-      verdict: check.verdict.word,
-      reason: check.verdict.reason,
+      verdict: used.verdict.word,
+      reason: used.verdict.reason,
+      finding: used.verdict.finding,
+      note: used.verdict.note,
+      reading: isRobustReading(used) ? "robust" : "plain",
+      switched,
+      plainVerdict: plain.verdict.word,
+      volatility,
+      bias,
       alpha,
       test,
     };
+    return { result, refusal: null };
   } catch (error) {
     if (!isEcholotError(error)) throw error;
-    return {
+    const result: SeriesResult = {
       id,
       n: series.count,
       statistic: null,
@@ -80,25 +121,51 @@ export function seriesResult(
       pBound: false,
       verdict: null,
       reason: error.message,
+      finding: "",
+      note: "",
+      reading: null,
+      switched: false,
+      plainVerdict: null,
+      volatility: null,
+      bias: null,
       alpha,
       test,
     };
+    return { result, refusal: error };
+  }
+}
+
+/** The checks of one series as a batch part's line; `index` names an unlabelled series. */
+export function seriesResult(
+  series: Series,
+  index: number,
+  options: LagOptions = {},
+): SeriesResult {
+  return analyseSeries(series, index, options).result;
+}
+
+/** A side check's figures, or null when the series cannot support it (too short, constant). */
+function sideFigures<T>(compute: () => T): T | null {
+  try {
+    return compute();
+  } catch (error) {
+    if (!isEcholotError(error)) throw error;
+    return null;
   }
 }
 
 /**
  * The cross-series step over the results of every part: Benjamini–Hochberg q-values across all
- * series with a p-value, and the raw and false-discovery counts, as `batchCheck` gives them.
+ * series with a p-value, the words and the counts, as `batchCheck` gives them.
  */
 export function mergeSeriesResults(results: readonly SeriesResult[]): BatchCheck {
   if (results.length === 0) invalid("there are no series results to merge");
   const first = results[0] as SeriesResult;
-  const alpha = first.alpha;
   const ids = new Set<string>();
   for (const r of results) {
-    if (r.alpha !== alpha) {
+    if (r.alpha !== first.alpha) {
       invalid(
-        `the parts were checked at different levels (alpha ${alpha} and ${r.alpha}): run every part with the same --alpha`,
+        `the parts were checked at different levels (alpha ${first.alpha} and ${r.alpha}): run every part with the same --alpha`,
       );
     }
     if (r.test !== first.test) {
@@ -111,29 +178,5 @@ export function mergeSeriesResults(results: readonly SeriesResult[]): BatchCheck
     ids.add(r.id);
   }
   const sorted = results.slice().sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const qValues = benjaminiHochberg(sorted.map((r) => r.p ?? NaN));
-  const qBounds = boundedQValues(sorted.map((r) => ({ p: r.p ?? NaN, pBound: r.pBound })));
-  const rows: BatchRow[] = sorted.map((r, i) => ({
-    label: r.id,
-    n: r.n,
-    q: r.statistic ?? NaN,
-    df: r.df ?? 0,
-    p: r.p ?? NaN,
-    reference: r.reference,
-    draws: r.draws,
-    pBound: r.pBound,
-    qValue: qValues[i] as number,
-    qValueBound: qBounds[i] as boolean,
-    verdict: r.verdict,
-    reason: r.reason,
-  }));
-  let flaggedRaw = 0;
-  let flaggedFdr = 0;
-  let analysed = 0;
-  for (const row of rows) {
-    if (row.p < alpha) flaggedRaw++;
-    if (row.qValue <= alpha) flaggedFdr++;
-    if (!Number.isNaN(row.p)) analysed++;
-  }
-  return { alpha, rows, flaggedRaw, flaggedFdr, analysed };
+  return combineResults(sorted, first.alpha);
 }

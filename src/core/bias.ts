@@ -4,7 +4,15 @@
  * (Newey & West 1987, Econometrica 55:703–708):
  *   LRV = γ̂_0 + 2 Σ_{j=1..L} (1 − j/(L+1)) γ̂_j,   se(x̄) = √(LRV/n),   t = x̄/se,
  * with the divide-by-n autocovariances γ̂_j of autocovariance.ts and Bartlett weights, which keep
- * LRV ≥ 0. Two-sided p from the standard normal (the asymptotic reference of the HAC t).
+ * LRV ≥ 0. The p is two-sided, from the fixed-b reference (Kiefer & Vogelsang 2005, Econometric
+ * Theory 21:1130–1164): the standard normal over-rejects badly in short series (measured on white
+ * noise, 20,000 runs each: 9.1% at n 25, 7.3% at n 52, 6.4% at n 104 for a 5% test), because the
+ * HAC variance is estimated from few lags. Fixed-b theory treats b = (L + 1)/n as fixed; its 5%
+ * two-sided critical value for the Bartlett kernel is
+ *   cv(b) = 1.9600 + 2.9694·b + 0.4160·b² − 0.5324·b³   (the polynomial fit, from memory),
+ * and Echolot scales t by z_{0.975}/cv(b) before the normal tail, which is exact at 5% and close
+ * elsewhere (measured on white noise, 20,000 runs: 4.7–5.0% at 5% for n 20–1000; 1.0–1.5% at 1%;
+ * 9.0–10.1% at 10% — test/calibration/biasSize.test.ts asserts the 5% rate).
  * Default L = ⌊4(n/100)^{2/9}⌋ (from memory: the preliminary lag of Newey & West 1994, Rev. Econ.
  * Stud. 61:631–653); `hacLags` overrides it, and L = 0 gives the plain iid standard error
  * √(γ̂_0/n). With gaps each γ̂_j sums over the pairs present; a lag with no pair adds nothing.
@@ -33,13 +41,27 @@ export interface BiasCheck {
   /** √(LRV/n). */
   readonly se: number;
   readonly t: number;
-  /** Two-sided p of t. */
+  /** Two-sided p of t against the fixed-b reference (see the file's comment). */
   readonly p: number;
   /** L. */
   readonly hacLags: number;
   readonly alpha: number;
   /** The mean differs from zero at alpha. */
   readonly flagged: boolean;
+}
+
+/** z_{0.975}: the normal 5% two-sided critical value the fixed-b one replaces. */
+const Z_975 = 1.959963984540054;
+
+/** The 5% two-sided fixed-b critical value of the Bartlett-kernel HAC t, b = (L + 1)/n. */
+export function fixedBCritical(hacLags: number, n: number): number {
+  const b = (hacLags + 1) / n;
+  return 1.96 + 2.9694 * b + 0.416 * b * b - 0.5324 * b * b * b;
+}
+
+/** t scaled so that the normal tail beyond it is the fixed-b tail at 5%. */
+export function fixedBScaled(t: number, hacLags: number, n: number): number {
+  return (t * Z_975) / fixedBCritical(hacLags, n);
 }
 
 /** ⌊4(n/100)^{2/9}⌋, at most n − 1. */
@@ -103,7 +125,7 @@ export function biasCheck(series: Series, options: BiasOptions = {}): BiasCheck 
   const seScaled = Math.sqrt(lrv / n);
   const t = mean / scale / seScaled;
   const se = seScaled * scale;
-  const p = normalTwoSided(t);
+  const p = normalTwoSided(fixedBScaled(t, L, n));
   return {
     label: series.label,
     n,

@@ -65,3 +65,13 @@ export function corridorCrossings(
   }
   return { lags, tested, beyondLags };
 }
+
+/** The largest |z_k| = |r_k / se_k| over lags 1..K with a finite z (0 when none). */
+export function largestZ(correlation: ArrayLike<number>, se: ArrayLike<number>): number {
+  let largest = 0;
+  for (let k = 1; k < correlation.length; k++) {
+    const size = Math.abs((correlation[k] as number) / (se[k - 1] as number));
+    if (size > largest) largest = size;
+  }
+  return largest;
+}

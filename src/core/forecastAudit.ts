@@ -205,9 +205,12 @@ function combined(
     ? "plain variance (the rectangular long-run variance was not positive)"
     : `long-run variance over lags 0–${bias.horizon - 1}`;
   const sentence = `The forecasts are biased: mean error ${formatNumber(bias.mean, 4)} (se ${formatNumber(bias.se, 3)} from the ${variance}, corrected t = ${formatNumber(bias.tCorrected, 3)}, ${pPhrase(bias.p)} against t with ${bias.df} df; bias, dependence and the all-lags corridor together are set to fire for ${formatLevel(alpha)} of correct forecasts, the bias at p < ${formatNumber(levels.biasLevel, 2)}).`;
+  const finding = `${sentence} Dependence (${dependence.word}): ${dependence.finding}`;
   return {
     word: "structure",
-    reason: `${sentence} Dependence (${dependence.word}): ${dependence.reason}`,
+    reason: `${finding} ${dependence.note}`,
+    finding,
+    note: dependence.note,
     triggers: dependence.triggers,
   };
 }

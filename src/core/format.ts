@@ -68,6 +68,7 @@ const REFERENCE_WORDS: Readonly<Record<ReferencedP["reference"], string>> = {
   permutation: "permutation",
   "chi-square": "χ²",
   "monte-carlo": "Monte Carlo",
+  "normal-limit": "the normal limit",
 };
 
 /** Where a p-value comes from, for labels: "permutation, 499 draws", "χ²". */

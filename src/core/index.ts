@@ -43,3 +43,6 @@ export * from "./table";
 export * from "./columnChoice";
 export * from "./longFormat";
 export * from "./batchParts";
+export * from "./headline";
+export * from "./batchHeadline";
+export * from "./batchRanking";

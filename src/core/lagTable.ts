@@ -8,7 +8,7 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { robustVariances, standardErrors } from "./bands";
-import { corridorCrossings, innerCorridor } from "./corridors";
+import { corridorCrossings, innerCorridor, largestZ } from "./corridors";
 import { normalTwoSided } from "./distributions";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
 import { sidakAdjust } from "./multiplicity";
@@ -28,7 +28,7 @@ import type { Series } from "./types";
 import { untestedSeasonalLags } from "./defaultLags";
 import { chiSquareUpperTail } from "./distributions";
 import { judge, seasonalLags, type Verdict, type VerdictLag } from "./verdict";
-import { verdictLevels, type VerdictLevels } from "./verdictReference";
+import { verdictLevels, type SeriesLevels } from "./verdictReference";
 
 export interface LagRow {
   readonly lag: number;
@@ -80,7 +80,7 @@ export interface LagTable extends ResolvedLagOptions {
    */
   readonly jointLevel: number;
   /** The reference, levels and the joint p the verdict used (verdictReference.ts). */
-  readonly levels: VerdictLevels;
+  readonly levels: SeriesLevels;
   readonly rows: readonly LagRow[];
   readonly joint: JointTest;
   readonly falseAlarm: FalseAlarmNote;
@@ -97,7 +97,7 @@ export interface NoiseCheck extends ResolvedLagOptions {
   /** The χ² p below which the joint test rejects (see LagTable). */
   readonly jointLevel: number;
   /** The reference, levels and the joint p the verdict used (verdictReference.ts). */
-  readonly levels: VerdictLevels;
+  readonly levels: SeriesLevels;
   readonly falseAlarm: FalseAlarmNote;
   readonly verdict: Verdict;
 }
@@ -113,7 +113,7 @@ interface Screen {
   readonly se: Float64Array;
   readonly innerLevel: number;
   readonly joint: JointTest;
-  readonly levels: VerdictLevels;
+  readonly levels: SeriesLevels;
   /** Lag k at index k−1: r_k, z_k and the two corridors. */
   readonly lags: readonly VerdictLag[];
   readonly tested: number;
@@ -161,6 +161,7 @@ function screen(
       keyLags: [1, ...seasonalLags(season, K)],
       q: joint.q,
       df: joint.df,
+      largest: largestZ(ac.correlation, se),
     },
     [testKind, bandKind, String(K), String(alpha), String(season)],
   );

@@ -66,7 +66,12 @@ export interface VerdictInput {
 
 export interface Verdict {
   readonly word: VerdictWord;
+  /** The finding followed by the note: the one sentence block every view shows. */
   readonly reason: string;
+  /** What was found and at which level, without the note. */
+  readonly finding: string;
+  /** The untested-seasonal-lag remark (if any) and the false-alarm sentence. */
+  readonly note: string;
   /** Which rules fired, for the pane's explanation and the tests. */
   readonly triggers: {
     readonly jointRejects: boolean;
@@ -112,18 +117,12 @@ export function judge(input: VerdictInput): Verdict {
   const jointFigures = `Q = ${formatNumber(joint.q, 4)}, df ${joint.df}, ${jointP}`;
 
   if (n < MIN_VALUES_TO_JUDGE) {
-    return {
-      word: "short",
-      reason: `Only ${n} values: a verdict needs at least ${MIN_VALUES_TO_JUDGE}; the figures are shown for reference. ${note}`,
-      triggers,
-    };
+    const finding = `Only ${n} values: a verdict needs at least ${MIN_VALUES_TO_JUDGE}; the figures are shown for reference.`;
+    return inParts("short", finding, note, triggers);
   }
   if (maxLag > n / 4) {
-    return {
-      word: "short",
-      reason: `${maxLag} lags is more than a quarter of the ${n} values, too many to judge; use maxLag ${Math.floor(n / 4)} or fewer. ${note}`,
-      triggers,
-    };
+    const finding = `${maxLag} lags is more than a quarter of the ${n} values, too many to judge; use maxLag ${Math.floor(n / 4)} or fewer.`;
+    return inParts("short", finding, note, triggers);
   }
 
   const describeLag = (lag: number) => {
@@ -154,7 +153,7 @@ export function judge(input: VerdictInput): Verdict {
       );
     }
     parts.push(levelNote);
-    return { word: "structure", reason: `${parts.join(" ")} ${note}`, triggers };
+    return inParts("structure", parts.join(" "), note, triggers);
   }
 
   if (triggers.lagOne || triggers.seasonalLags.length > 0 || triggers.excessCrossings) {
@@ -169,7 +168,7 @@ export function judge(input: VerdictInput): Verdict {
     parts.push(
       `The watch line (|z| > ${formatNumber(watchLine(levels.watchLevel), 3)}) is set so that lag ${firstLag}, the seasonal lags and the crossing count together raise watch for at most ${formatLevel(alpha)} of pure noise.`,
     );
-    return { word: "watch", reason: `${parts.join(" ")} ${note}`, triggers };
+    return inParts("watch", parts.join(" "), note, triggers);
   }
 
   parts.push(`No leftover structure found: ${testName} over ${span} gives ${jointP}.`);
@@ -178,7 +177,16 @@ export function judge(input: VerdictInput): Verdict {
       `${capitalise(describeLag(falseAlarm.beyondLags[0] as number))} crosses its band alone; a lone lag that is neither lag ${firstLag} nor seasonal is weak evidence.`,
     );
   }
-  return { word: "clear", reason: `${parts.join(" ")} ${note}`, triggers };
+  return inParts("clear", parts.join(" "), note, triggers);
+}
+
+function inParts(
+  word: VerdictWord,
+  finding: string,
+  note: string,
+  triggers: Verdict["triggers"],
+): Verdict {
+  return { word, reason: `${finding} ${note}`, finding, note, triggers };
 }
 
 /** z of the watch line: |z| beyond it has a two-sided p below w*. */

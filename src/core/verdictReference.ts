@@ -37,6 +37,14 @@
  * 1991, Biometrika 78:301–304: p = h/L when the h-th exceedance comes at draw L, else
  * (G + 1)/(L_max + 1)), which keeps p exact on its support and shows small p-values to 1/20,000;
  * a p with no exceedance in all draws is a bound. For the normal-limit reference, the χ² tail.
+ *
+ * The structure p, for a batch's false-discovery step: the structure rule as one test, with the
+ * statistic T = min(χ² tail of Q, Šidák-adjusted two-sided normal p of M) — a fixed, continuous
+ * function of the data, so its permutation p is exact and can be refined like the joint p
+ * (Besag–Clifford, to 1/20,000). A batch that ranked series by the joint p alone would miss a
+ * series whose evidence is one strong lag (an AR(1) error at lag 1 among 26 lags tested), which
+ * its own verdict calls structure. Under the normal limit the two p-values are joined by
+ * Bonferroni: min(1, 2·T), valid whatever their dependence.
  * Draws are seeded from the data and options (seededDraws.ts), so results never change on
  * recalculation. Cost: B·O(n·K) for the permutation reference, up to 20,000·O(n·K) more for a
  * remarkable series' p; O(19,999·K) once per key for the normal limit.
@@ -53,7 +61,7 @@ import { kthLargest, kthSmallest, upperCounts } from "./ranks";
 import { type DrawStream, SeedHash } from "./seededDraws";
 
 export type ReferenceKind = "permutation" | "normal-limit" | "monte-carlo";
-export type PReference = "permutation" | "chi-square" | "monte-carlo";
+export type PReference = "permutation" | "chi-square" | "monte-carlo" | "normal-limit";
 
 /** A p-value with what it comes from. */
 export interface ReferencedP {
@@ -83,6 +91,15 @@ export interface VerdictLevels {
   readonly jointRejects: boolean;
 }
 
+/** The levels of one series' verdict, with the p of its structure rule. */
+export interface SeriesLevels extends VerdictLevels {
+  /**
+   * The p of the structure rule as one test — the joint test and the largest lag together — for a
+   * batch's false-discovery step (see the file's comment, "The structure p").
+   */
+  readonly structureP: ReferencedP;
+}
+
 export interface VerdictReferenceInput {
   /** The subject's deviations at present positions (any fixed scale), 0 at gaps. */
   readonly deviations: Float64Array;
@@ -96,6 +113,8 @@ export interface VerdictReferenceInput {
   readonly keyLags: readonly number[];
   /** The observed joint statistic, as the core computed it, and its df. */
   readonly q: number;
+  /** The observed largest |z_k| (the structure p under the normal limit needs it). */
+  readonly largest: number;
   readonly df: number;
 }
 
@@ -181,7 +200,7 @@ function testedLags(spec: LagStatisticsSpec): number {
 }
 
 /** The permutation reference (see the file's comment). */
-function permutationLevels(input: VerdictReferenceInput, stream: DrawStream): VerdictLevels {
+function permutationLevels(input: VerdictReferenceInput, stream: DrawStream): SeriesLevels {
   const { deviations, present, spec, alpha, keyLags, innerLevel } = input;
   const length = deviations.length;
   const n = spec.n;
@@ -232,6 +251,25 @@ function permutationLevels(input: VerdictReferenceInput, stream: DrawStream): Ve
   const [criticalQ, outerLevel] = common.criticals as [number, number];
   const u0 = upperCounts(q)[0] as number;
   const base = { p: u0 / (B + 1), reference: "permutation" as const, draws: B, bound: false };
+  const jointP = refineJointP(base, u0 - 1, q[0] as number, alpha, () => {
+    shuffle();
+    return lagStatistics(arrangement, spec, work, true);
+  });
+  // The structure p, after the joint p so that the joint p's draws stay as they were.
+  const tested = testedLags(spec);
+  const T = (b: number) =>
+    structureStatistic(q[b] as number, largest[b] as number, input.df, tested);
+  const t0 = T(0);
+  let atMost = 0;
+  for (let b = 0; b <= B; b++) if (T(b) <= t0) atMost++;
+  const structureBase = { ...base, p: atMost / (B + 1) };
+  // T is small for extreme series: the refinement counts draws at or below it (negated).
+  const structureP = refineJointP(structureBase, atMost - 1, -t0, alpha, () => {
+    shuffle();
+    const drawnQ = lagStatistics(arrangement, spec, work);
+    summarise(work.z, keyLags, innerLevel, summary);
+    return -structureStatistic(drawnQ, summary.largest, input.df, tested);
+  });
   return {
     reference: "permutation",
     draws: B,
@@ -239,12 +277,18 @@ function permutationLevels(input: VerdictReferenceInput, stream: DrawStream): Ve
     criticalQ,
     outerLevel,
     watchLevel: drawnLevel(w, alpha),
-    jointP: refineJointP(base, u0 - 1, q[0] as number, alpha, () => {
-      shuffle();
-      return lagStatistics(arrangement, spec, work, true);
-    }),
+    jointP,
     jointRejects: (q[0] as number) > criticalQ,
+    structureP,
   };
+}
+
+/**
+ * T = min(χ² tail of Q, Šidák-adjusted two-sided normal p of the largest |z|): the structure rule
+ * as one statistic on the p scale (smaller = more extreme).
+ */
+export function structureStatistic(q: number, largest: number, df: number, tested: number): number {
+  return Math.min(chiSquareUpperTail(q, df), sidakAdjust(normalTwoSided(largest), tested));
 }
 
 /**
@@ -408,7 +452,7 @@ export function drawSeed(input: VerdictReferenceInput, words: readonly string[])
 export function verdictLevels(
   input: VerdictReferenceInput,
   seedWords: readonly string[],
-): VerdictLevels {
+): SeriesLevels {
   const { spec, alpha, fittedParams, keyLags, innerLevel, q, df } = input;
   if (referenceKind(spec.n, spec.maxLag, fittedParams, alpha) === "permutation") {
     return permutationLevels(input, drawSeed(input, seedWords).stream());
@@ -416,11 +460,18 @@ export function verdictLevels(
   const tested = testedLags(spec);
   const limit = normalLimit(tested, df, alpha, keyLags, innerLevel);
   const p = chiSquareUpperTail(q, df);
+  const bonferroni = Math.min(1, 2 * structureStatistic(q, input.largest, df, tested));
   return {
     reference: "normal-limit",
     draws: NORMAL_LIMIT_DRAWS,
     ...limit,
     jointP: { p, reference: "chi-square", draws: 0, bound: p <= 1e-300 },
     jointRejects: q > limit.criticalQ,
+    structureP: {
+      p: bonferroni,
+      reference: "normal-limit",
+      draws: 0,
+      bound: bonferroni <= 1e-300,
+    },
   };
 }

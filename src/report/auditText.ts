@@ -5,7 +5,13 @@
  * lags from h on with its q-value, and the verdict; then the reasons of every series that is not
  * clear, and the raw and false-discovery-rate counts for dependence and for bias.
  */
-import { formatNumber, type AuditBatch, type AuditBatchItem, type ForecastAudit } from "../core";
+import {
+  formatNumber,
+  rankedAuditItems,
+  type AuditBatch,
+  type AuditBatchItem,
+  type ForecastAudit,
+} from "../core";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 import { figureCell, numberCell, pCell } from "./tableCells";
 
@@ -45,7 +51,8 @@ export function auditText(batch: AuditBatch, horizon: number, season: number | n
   lines.push(
     `${"series".padEnd(width)}      n        mean       se       t  p(bias)  q(bias)${expectedHeader}  lags        Q  df   p(dep)   q(dep)  verdict`,
   );
-  for (const item of batch.items) lines.push(row(item, width, horizon));
+  const ranked = rankedAuditItems(batch);
+  for (const item of ranked) lines.push(row(item, width, horizon));
   lines.push("");
   const analysed = batch.items.filter((item) => item.audit !== null).length;
   lines.push(
@@ -54,18 +61,21 @@ export function auditText(batch: AuditBatch, horizon: number, season: number | n
   lines.push(
     `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.biasFlaggedFdr}.`,
   );
-  const notes = batch.items.filter(
-    (item) => item.audit === null || item.audit.verdict.word !== "clear",
+  lines.push(
+    `Only kept items are called structure or biased; a finding the false-discovery step does not keep is at most watch. Ranked: kept findings first, then watch, clear.`,
+  );
+  const notes = ranked.filter(
+    (item) => item.headline === null || item.headline.word !== "clear" || item.headline.biased,
   );
   if (notes.length > 0) {
     lines.push("");
     for (const item of notes) {
-      const audit = item.audit;
-      if (audit === null) {
+      const { headline } = item;
+      if (headline === null) {
         lines.push(`${item.label}: not audited: ${item.problem}`);
       } else {
         lines.push(
-          `${item.label}: ${BADGES[audit.verdict.word].shape} ${audit.verdict.word}: ${audit.verdict.reason}`,
+          `${item.label}: ${BADGES[headline.word].shape} ${headline.title}: ${headline.finding}`,
         );
       }
     }
@@ -87,7 +97,8 @@ function row(item: AuditBatchItem, width: number, horizon: number): string {
           .filter((r) => !r.counted)
           .map((r) => numberCell(r.correlation, 2, 5))
           .join(" ")}`.padEnd(8 + 6 * (horizon - 1));
-  const badge = BADGES[audit.verdict.word];
+  const headline = item.headline;
+  const badge = headline === null ? "" : `${BADGES[headline.word].shape} ${headline.title}`;
   return [
     label,
     String(audit.n).padStart(6),
@@ -102,6 +113,6 @@ function row(item: AuditBatchItem, width: number, horizon: number): string {
     String(dependenceTest.df).padStart(3),
     pCell(audit.levels.jointP.p, 8),
     pCell(item.dependenceQValue, 8),
-    ` ${badge.shape} ${badge.word}`,
+    ` ${badge}`,
   ].join(" ");
 }

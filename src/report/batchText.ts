@@ -1,10 +1,16 @@
 /**
  * The batch check as a fixed-width text table for the terminal: one row per series, sorted by
- * q-value (the ones to look at first on top), then the count the raw p-values flag against the
+ * the core's ranking (kept findings first, then watch, clear, short), then the count the raw p-values flag against the
  * count the false-discovery rate keeps, and the reasons of series that could not be analysed.
  */
-import { formatLevel, formatNumber, TEST_NAMES, type BatchCheck, type TestKind } from "../core";
-import { rowsByQValue } from "./batchOrder";
+import {
+  formatLevel,
+  formatNumber,
+  rankedRows,
+  TEST_NAMES,
+  type BatchCheck,
+  type TestKind,
+} from "../core";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 import { pCell, numberCell } from "./tableCells";
 
@@ -17,19 +23,20 @@ export interface BatchTextContext {
 export function batchText(batch: BatchCheck, context: BatchTextContext): string {
   const { alpha } = batch;
   const width = batch.rows.reduce((w, row) => Math.max(w, row.label.length), 6);
-  const order = rowsByQValue(batch);
+  const order = rankedRows(batch);
   const lines: string[] = [];
   lines.push(
-    `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${context.maxLag === null ? "the default lags" : `${context.maxLag} lags`}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}; sorted by q-value`,
+    `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${context.maxLag === null ? "the default lags" : `${context.maxLag} lags`}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}; ranked: kept findings first`,
   );
   lines.push("");
   lines.push(
-    `${"series".padEnd(width)}      n         Q   df         p   q-value  verdict     flagged`,
+    `${"series".padEnd(width)}      n         Q   df         p   q-value  headline             flagged`,
   );
   for (const row of order) {
+    const { headline } = row;
     const badge =
-      row.verdict === null ? "— not analysed" : `${BADGES[row.verdict].shape} ${row.verdict}`;
-    const flags = [row.p < alpha ? "raw" : "", row.qValue <= alpha ? "FDR" : ""]
+      headline === null ? "— not analysed" : `${BADGES[headline.word].shape} ${headline.title}`;
+    const flags = [row.p < alpha ? "raw" : "", row.kept ? "kept" : ""]
       .filter((f) => f !== "")
       .join(" + ");
     lines.push(
@@ -40,7 +47,7 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
         String(row.df).padStart(4),
         pCell(row.p, 9),
         pCell(row.qValue, 9),
-        ` ${badge.padEnd(11)}`,
+        ` ${badge.padEnd(20)}`,
         flags,
       ].join(" "),
     );
@@ -51,7 +58,10 @@ export function batchText(batch: BatchCheck, context: BatchTextContext): string 
     `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
   );
   lines.push(
-    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept flagged (Benjamini–Hochberg q ≤ ${alpha}); among series flagged this way, false flags are held to about ${formatLevel(alpha)} on average (less strictly for short series, where Ljung–Box p-values run a little small in the far tail).`,
+    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept (Benjamini–Hochberg q ≤ ${alpha}); among the kept, false flags are held to about ${formatLevel(alpha)} on average. Only kept series are called structure; a finding the step does not keep is at most watch.`,
+  );
+  lines.push(
+    `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw}; the false-discovery step on bias keeps ${batch.biasFlaggedFdr} (marked "biased").`,
   );
   for (const row of order) {
     if (row.verdict === null) lines.push(`not analysed: ${row.label}: ${row.reason}`);

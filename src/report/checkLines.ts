@@ -33,7 +33,7 @@ export function volatilityFinding(check: VolatilityCheck): CheckFinding {
 }
 
 export function biasFinding(check: BiasCheck): CheckFinding {
-  const figures = `mean ${formatNumber(check.mean, 4)}, Newey–West se ${formatNumber(check.se, 3)} over ${check.hacLags} lag${check.hacLags === 1 ? "" : "s"}, t = ${formatNumber(check.t, 3)}, ${pPhrase(check.p)}`;
+  const figures = `mean ${formatNumber(check.mean, 4)}, Newey–West se ${formatNumber(check.se, 3)} over ${check.hacLags} lag${check.hacLags === 1 ? "" : "s"}, t = ${formatNumber(check.t, 3)}, ${pPhrase(check.p)} fixed-b`;
   return check.flagged
     ? {
         flagged: true,

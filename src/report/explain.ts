@@ -12,6 +12,7 @@ import {
   pPhrase,
   seasonalLags,
   TEST_NAMES,
+  type Headline,
   type LagTable,
   type VerdictWord,
 } from "../core";
@@ -63,6 +64,12 @@ export interface SideFinding {
 }
 
 export interface ExplainContext {
+  /**
+   * The series' headline (core/headline.ts): when given, the first paragraph is its title and
+   * findings (lag structure, bias, volatility), and the separate bias and volatility paragraphs
+   * are left out when the headline already carries them.
+   */
+  readonly headline?: Headline;
   /** The lag table of the squared deviations (testKind "squares"), for the volatility caution. */
   readonly squares?: LagTable;
   /** Extra volatility finding (e.g. Engle's LM test), shown when it flags. */
@@ -80,10 +87,12 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
   const note = falseAlarmSentence(falseAlarm, alpha);
   const items: ExplanationItem[] = [];
 
-  const reasonOnly = verdict.reason.endsWith(note)
-    ? verdict.reason.slice(0, verdict.reason.length - note.length).trim()
-    : verdict.reason;
-  items.push({ topic: "verdict", heading: `${badge.shape} ${badge.word}`, text: reasonOnly });
+  const headline = context.headline;
+  items.push(
+    headline === undefined
+      ? { topic: "verdict", heading: `${badge.shape} ${badge.word}`, text: verdict.finding }
+      : { topic: "verdict", heading: `${badge.shape} ${headline.title}`, text: headline.finding },
+  );
   items.push({ topic: "false-alarms", heading: "False alarms", text: falseAlarmText(table, note) });
 
   const season = seasonText(table);
@@ -92,11 +101,11 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
   const small = smallSampleText(table);
   if (small !== undefined)
     items.push({ topic: "small-sample", heading: "Sample size", text: small });
-  const volatility = volatilityText(table, context);
+  const volatility = headline?.volatile === true ? undefined : volatilityText(table, context);
   if (volatility !== undefined) {
     items.push({ topic: "volatility", heading: "Volatility", text: volatility });
   }
-  if (context.bias?.flagged === true) {
+  if (context.bias?.flagged === true && headline?.biased !== true) {
     items.push({ topic: "bias", heading: "Bias", text: context.bias.text });
   }
   items.push({ topic: "screening", heading: "A screen, not a decision", text: SCREENING_CAUTION });
@@ -191,9 +200,12 @@ export function explanationText(explanation: Explanation): string {
   return explanation.items.map((item) => `${item.heading}: ${item.text}`).join("\n");
 }
 
-/** What "Copy summary" puts on the clipboard: the verdict and its reason, and the caution. */
-export function summaryText(table: LagTable): string {
-  const badge = BADGES[table.verdict.word];
+/**
+ * What "Copy summary" puts on the clipboard: the headline with every finding that fired (or, with
+ * no headline, the verdict and its reason), the false-alarm note, and the caution.
+ */
+export function summaryText(table: LagTable, headline?: Headline): string {
+  const badge = BADGES[headline?.word ?? table.verdict.word];
   const name = table.label === "" ? "Series" : table.label;
   const options = [
     `${table.maxLag} lags`,
@@ -204,8 +216,8 @@ export function summaryText(table: LagTable): string {
     ...(table.fittedParams > 0 ? [`${table.fittedParams} fitted parameters`] : []),
   ].join(", ");
   return [
-    `${name} (n = ${table.n}${table.gaps > 0 ? `, ${table.gaps} gaps` : ""}; ${options}): ${badge.shape} ${badge.word}`,
-    table.verdict.reason,
+    `${name} (n = ${table.n}${table.gaps > 0 ? `, ${table.gaps} gaps` : ""}; ${options}): ${badge.shape} ${headline?.title ?? badge.word}`,
+    ...(headline === undefined ? [table.verdict.reason] : [...headline.findings, headline.note]),
     SCREENING_CAUTION,
   ].join("\n");
 }

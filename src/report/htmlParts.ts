@@ -4,8 +4,14 @@
  * explanation. Every text is escaped; colours come from the palette as SVG presentation
  * attributes, so the fragments need no inline style (the pane's CSP forbids it).
  */
-import { formatNumber, formatP, type BatchCheck, type LagTable, type VerdictWord } from "../core";
-import { rowsByQValue } from "./batchOrder";
+import {
+  formatNumber,
+  formatP,
+  rankedRows,
+  type BatchCheck,
+  type LagTable,
+  type VerdictWord,
+} from "../core";
 import { escapeMarkup } from "./escape";
 import type { Explanation } from "./explain";
 import { jointTestName, lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
@@ -37,7 +43,8 @@ function badgeShape(word: VerdictWord): string {
   }
 }
 
-export function badgeHtml(word: VerdictWord): string {
+/** The verdict badge: shape and word, or the headline's title ("clear, biased") beside the shape. */
+export function badgeHtml(word: VerdictWord, title: string = word): string {
   const badge = BADGES[word];
   const shape = element(
     "svg",
@@ -46,8 +53,8 @@ export function badgeHtml(word: VerdictWord): string {
   );
   return element(
     "span",
-    { class: `badge badge-${word}`, "data-word": word, title: `verdict: ${badge.shape} ${word}` },
-    `${shape}${textElement("span", { class: "badge-word" }, word)}`,
+    { class: `badge badge-${word}`, "data-word": word, title: `verdict: ${badge.shape} ${title}` },
+    `${shape}${textElement("span", { class: "badge-word" }, title)}`,
   );
 }
 
@@ -211,11 +218,11 @@ export function zoneLegendHtml(table: LagTable): string {
 }
 
 /**
- * The batch view: one row per series, the most telling first (ascending q-value; series that
- * could not be analysed last, with their reason).
+ * The batch view: one row per series in the core's ranked order (batchRanking.ts), each with its
+ * headline across the batch (batchHeadline.ts).
  */
 export function batchTableHtml(batch: BatchCheck): string {
-  const order = rowsByQValue(batch);
+  const order = rankedRows(batch);
   const head = element(
     "tr",
     {},
@@ -225,17 +232,18 @@ export function batchTableHtml(batch: BatchCheck): string {
   );
   const body = order
     .map((row) => {
+      const { headline } = row;
       const verdict =
-        row.verdict === null
+        headline === null
           ? textElement("td", { title: row.reason }, "not analysed")
           : element(
               "td",
-              { title: row.reason, "data-word": row.verdict },
-              escapeMarkup(`${BADGES[row.verdict].shape} ${row.verdict}`),
+              { title: headline.finding, "data-word": headline.word },
+              escapeMarkup(`${BADGES[headline.word].shape} ${headline.title}`),
             );
       return element(
         "tr",
-        { class: row.qValue <= batch.alpha ? "flagged" : undefined },
+        { class: row.kept || headline?.biased === true ? "flagged" : undefined },
         [
           textElement("th", { scope: "row" }, row.label),
           textElement("td", {}, String(row.n)),

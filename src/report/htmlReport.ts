@@ -7,8 +7,14 @@
  * archived or opened offline. Charts are drawn at a fixed 320 px, so their text stays at 11 px
  * and the page fits a 350 px screen without sideways scrolling.
  */
-import { formatP, type BatchCheck, type LagTable } from "../core";
-import { rowsByQValue } from "./batchOrder";
+import {
+  formatP,
+  rankedRows,
+  type BatchCheck,
+  type BatchRow,
+  type Headline,
+  type LagTable,
+} from "../core";
 import { escapeMarkup } from "./escape";
 import { evidenceChartSvg } from "./evidenceChart";
 import { explainVerdict, type ExplainContext, type Explanation } from "./explain";
@@ -50,6 +56,8 @@ export interface ReportInput extends ReportMeta {
   readonly explanation?: Explanation;
   /** The side checks (volatility, bias, runs, normality). */
   readonly side?: SideChecks;
+  /** The headline (core/headline.ts), when the caller has it: its title goes on the badge. */
+  readonly headline?: Headline;
 }
 
 /** The width of every chart in a report: the pane's, so chart text stays at 11 px. */
@@ -186,7 +194,10 @@ export function reportHtml(input: ReportInput): string {
       textElement("p", { class: "question" }, reportQuestion(table)) +
         textElement("h1", {}, name) +
         textElement("p", { class: "meta" }, `n = ${table.n} · ${gapsWords(table.gaps)}`) +
-        badgeHtml(table.verdict.word) +
+        badgeHtml(
+          input.headline?.word ?? table.verdict.word,
+          input.headline?.title ?? table.verdict.word,
+        ) +
         textElement("p", { class: "meta" }, settingsLine(table)) +
         textElement("p", { class: "meta made" }, madeLine(input)),
     ),
@@ -212,13 +223,14 @@ export function seriesReportHtml(report: SeriesReport, meta: ReportMeta = {}): s
     ...(typeof report.squares === "string" ? {} : { squares: report.squares }),
     explanation: report.explanation,
     side: report.side,
+    headline: report.headline,
   });
 }
 
 /** One series of a batch, for its fold-out section: its report, or why it was not analysed. */
 export type BatchItem = SeriesReport | { readonly label: string; readonly reason: string };
 
-function itemSection(rank: number, item: BatchItem, index: number): string {
+function itemSection(rank: number, item: BatchItem, index: number, row: BatchRow): string {
   if (!("table" in item)) {
     return element(
       "details",
@@ -228,12 +240,14 @@ function itemSection(rank: number, item: BatchItem, index: number): string {
     );
   }
   const { table } = item;
-  const badge = BADGES[table.verdict.word];
-  const summary = `${rank}. ${table.label === "" ? `series ${index + 1}` : table.label}: ${badge.shape} ${badge.word}, p = ${formatP(table.joint.p)}`;
+  // The word across the batch (structure only when kept), as the ranked table shows it.
+  const word = row.headline?.word ?? table.verdict.word;
+  const title = row.headline?.title ?? word;
+  const summary = `${rank}. ${row.label}: ${BADGES[word].shape} ${title}, p = ${formatP(row.p)}, q = ${formatP(row.qValue)}`;
   const prefix = `item${index + 1}`;
   return element(
     "details",
-    { class: "item", "data-word": table.verdict.word },
+    { class: "item", "data-word": word },
     textElement("summary", {}, summary) +
       evidenceBlock(table, "correlation", prefix) +
       explanationHtml(item.explanation) +
@@ -252,13 +266,13 @@ export function batchReportHtml(
   items: readonly BatchItem[],
   meta: ReportMeta & { readonly title: string; readonly settings: string },
 ): string {
-  const ranked = rowsByQValue(batch);
+  const ranked = rankedRows(batch);
   const indexOf = new Map(batch.rows.map((row, i) => [row, i]));
   const sections = ranked.map((row, rank) => {
     const index = indexOf.get(row) ?? 0;
     const item = items[index];
     if (item === undefined) throw new Error(`no report for batch row ${index + 1}`);
-    return itemSection(rank + 1, item, index);
+    return itemSection(rank + 1, item, index, row);
   });
   const body = [
     element(

@@ -11,9 +11,11 @@
  */
 import {
   batchCheck,
+  biasCheck,
   forecastAudit,
   noiseCheck,
   seriesFromNumbers,
+  seriesHeadline,
   type LagOptions,
   type Series,
 } from "../core";
@@ -86,6 +88,55 @@ export function sizeOf(cell: SizeCell): SizeResult {
   };
 }
 
+/** Shares of pure-noise series whose headline (core/headline.ts) says each thing. */
+export interface HeadlineSizeResult {
+  readonly replications: number;
+  /** Word `structure` (in the reading the headline uses). */
+  readonly structure: number;
+  /** Flagged biased. */
+  readonly biased: number;
+  /** Either: some finding fired. */
+  readonly either: number;
+  /** The reading was switched to robust by the volatility check. */
+  readonly switched: number;
+}
+
+/** The headline on `replications` seeded series of the cell's noise law. */
+export function headlineSizeOf(cell: SizeCell): HeadlineSizeResult {
+  const random = seededRandom(cell.seed);
+  let structure = 0;
+  let biased = 0;
+  let either = 0;
+  let switched = 0;
+  for (let r = 0; r < cell.replications; r++) {
+    const series = seriesFromNumbers(noise(random, cell.n, cell.law));
+    const { headline } = seriesHeadline(series, cell.options);
+    if (headline.word === "structure") structure++;
+    if (headline.biased) biased++;
+    if (headline.word === "structure" || headline.biased) either++;
+    if (headline.switched) switched++;
+  }
+  const R = cell.replications;
+  return {
+    replications: R,
+    structure: structure / R,
+    biased: biased / R,
+    either: either / R,
+    switched: switched / R,
+  };
+}
+
+/** Share of `replications` seeded noise series whose bias check flags at its alpha. */
+export function biasSizeOf(cell: SizeCell): number {
+  const random = seededRandom(cell.seed);
+  let flagged = 0;
+  for (let r = 0; r < cell.replications; r++) {
+    const series = seriesFromNumbers(noise(random, cell.n, cell.law));
+    if (biasCheck(series, { alpha: cell.options.alpha ?? null }).flagged) flagged++;
+  }
+  return flagged / cell.replications;
+}
+
 export type Alternative =
   | { readonly kind: "ar1"; readonly phi: number }
   | { readonly kind: "ma"; readonly thetas: readonly number[] };
@@ -121,6 +172,8 @@ export interface BatchResult {
   readonly replications: number;
   /** Mean over replications of (noise series flagged / series flagged), 0 when none flagged. */
   readonly falseDiscoveryProportion: number;
+  /** Standard error of that mean (sample sd of the per-replication proportions over √R). */
+  readonly fdpStandardError: number;
   /** Mean number of the AR(1) series flagged (q ≤ alpha). */
   readonly found: number;
   /** Mean number of noise series with raw p < alpha. */
@@ -138,6 +191,7 @@ export function batchOf(
 ): BatchResult {
   const random = seededRandom(seed);
   let fdp = 0;
+  let fdpSquares = 0;
   let found = 0;
   let raw = 0;
   for (let rep = 0; rep < replications; rep++) {
@@ -155,12 +209,18 @@ export function batchOf(
       } else if (flagged) trueFlags++;
     });
     const flags = falseFlags + trueFlags;
-    fdp += flags === 0 ? 0 : falseFlags / flags;
+    const proportion = flags === 0 ? 0 : falseFlags / flags;
+    fdp += proportion;
+    fdpSquares += proportion * proportion;
     found += trueFlags;
   }
+  const mean = fdp / replications;
+  const variance =
+    replications > 1 ? (fdpSquares - replications * mean * mean) / (replications - 1) : 0;
   return {
     replications,
-    falseDiscoveryProportion: fdp / replications,
+    falseDiscoveryProportion: mean,
+    fdpStandardError: Math.sqrt(Math.max(0, variance) / replications),
     found: found / replications,
     rawNoiseFlags: raw / replications,
   };

@@ -181,7 +181,10 @@ export class PaneController {
       showMessage(this.el.actionStatus, "Nothing to copy yet: choose some data first.");
       return;
     }
-    const copied = await copyText(summaryText(analysis.table), this.el.copyBuffer);
+    const copied = await copyText(
+      summaryText(analysis.table, analysis.headline),
+      this.el.copyBuffer,
+    );
     showMessage(
       this.el.actionStatus,
       copied

@@ -112,7 +112,7 @@ export function renderAnalysis(
   el.result.hidden = false;
   el.label.textContent = table.label === "" ? "Series" : table.label;
   el.meta.textContent = `${gapsText(analysis)} · ${source}`;
-  el.badge.innerHTML = badgeHtml(table.verdict.word);
+  el.badge.innerHTML = badgeHtml(analysis.headline.word, analysis.headline.title);
   el.explanation.innerHTML = explanationHtml(analysis.explanation);
   renderView(el, analysis, view);
 }

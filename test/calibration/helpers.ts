@@ -21,9 +21,6 @@ export function expectShareWithin(
   expect(share >= low && share <= high, message).toBe(true);
 }
 
-/**
- * The timeout of one simulation test. The slowest (the batch's 200 replications of 200 series)
- * took 107 s on a 2-core machine loaded 4× over (load average 8) with the files run one at a
- * time; with both cores' workers busy it can take twice that. 15 minutes leaves room to spare.
- */
-export const SIMULATION_TIMEOUT = 900_000;
+// Timeouts of the simulation tests: 900 s each. The slowest (the batch's 200 replications of 200
+// series) took 107 s on a 2-core machine at load average 8 with the files run one at a time, and
+// 278 s with both workers busy and the load higher still; 900 s leaves room to spare.
