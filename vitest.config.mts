@@ -1,7 +1,8 @@
 import { existsSync } from "node:fs";
 import { availableParallelism } from "node:os";
+import { relative } from "node:path";
 import { configDefaults, defineConfig } from "vitest/config";
-import HeavyFirst from "./test/runner/heavyFirst";
+import { BaseSequencer, type TestSpecification } from "vitest/node";
 
 /**
  * The browser tests drive Debian's Chromium. They always run in CI (CI=true; a missing Chromium
@@ -15,6 +16,28 @@ if (!browserTests) {
     `NOT RUN: the browser tests of the pane (test/browser): no Chromium at ${chromium}. ` +
       "Install it with `apt-get install -y chromium` (or set CHROMIUM_PATH) to run them.",
   );
+}
+
+/**
+ * Orders the test files for the workers: longest first, so that no long file starts last and
+ * runs alone at the end. Vitest does this from the durations it cached in an earlier run; without
+ * them (a fresh clone: `npm ci` empties node_modules/.vite) it orders by file size, which would
+ * start the short files of seeded simulations last. The files of test/calibration/ then go first.
+ * (Defined here: the config loader reads plain modules best.)
+ */
+const SIMULATIONS = /[\\/]test[\\/]calibration[\\/]/;
+
+class HeavyFirst extends BaseSequencer {
+  override async sort(files: TestSpecification[]): Promise<TestSpecification[]> {
+    const sorted = await super.sort(files);
+    const cached = sorted.every((file) => {
+      const key = `${file.project.name}:${relative(this.ctx.config.root, file.moduleId)}`;
+      return this.ctx.cache.getFileTestResults(key) !== undefined;
+    });
+    if (cached) return sorted;
+    const simulations = sorted.filter((file) => SIMULATIONS.test(file.moduleId));
+    return [...simulations, ...sorted.filter((file) => !SIMULATIONS.test(file.moduleId))];
+  }
 }
 
 export default defineConfig({
