@@ -23,6 +23,6 @@ describe("forecastAudit(correct 3-step errors): structure ≤ 6.5%", () => {
         0.065,
         `audit structure, MA(2) θ ${thetas.join(", ")}, n ${n}`,
       );
-    }, 1_200_000);
+    }, 3_600_000);
   }
 });

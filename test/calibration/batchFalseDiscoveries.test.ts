@@ -24,5 +24,5 @@ describe("batchCheck(180 noise + 20 AR(1) φ 0.35 series): false discoveries und
     // Raw p < 0.05 flags about 5% of the 180 noise series (9): the p-values are exact.
     expect(result.rawNoiseFlags, message).toBeGreaterThanOrEqual(7.5);
     expect(result.rawNoiseFlags, message).toBeLessThanOrEqual(10.5);
-  }, 1_200_000);
+  }, 3_600_000);
 });

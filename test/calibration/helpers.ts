@@ -21,7 +21,7 @@ export function expectShareWithin(
   expect(share >= low && share <= high, message).toBe(true);
 }
 
-// Timeouts of the simulation tests: 20 minutes each, about ten times what the slowest took on a
-// 2-core machine at load average 8 with the files run one at a time (the batch's 200 replications
-// of 200 series, 107 s). Seen since: 278 s with both workers busy at a higher load, and the n 1000
-// cells 420 s each at load average 13–19.
+// Timeouts of the simulation tests: an hour each. A seeded simulation is a bounded loop that
+// cannot hang, so its timeout only has to outlast a busy machine: the batch's 200 replications of
+// 200 series took 107 s on a 2-core machine at load average 8 with the files run one at a time,
+// and 936 s at load average 13–19 with both workers busy (it then failed a 900 s timeout).

@@ -11,10 +11,10 @@ import { seededRandom } from "../../src/sim/random";
 import { loadBuiltFunctions, spilled, type CellResult, type LoadedAddIn } from "./host";
 
 const ROWS = 1_048_576;
-// Each test may take 600 s, about fifteen times the slowest call (SERIESCROSSCORR over two whole
-// columns: 39 s on a 2-core machine at load average 8 with the files run one at a time, 77 s with
-// both workers busy at a higher load).
-vi.setConfig({ testTimeout: 600_000 });
+// Each test may take 30 minutes: the calls are bounded work that cannot hang, and the slowest
+// (SERIESCROSSCORR over two whole columns) took 39 s on a 2-core machine at load average 8 with
+// the files run one at a time, 77 s with both workers busy; a machine at load 19 is slower still.
+vi.setConfig({ testTimeout: 1_800_000 });
 let addIn: LoadedAddIn;
 const noise = whiteNoise(seededRandom(1048576), ROWS - 1);
 const other = whiteNoise(seededRandom(7), ROWS - 1);
