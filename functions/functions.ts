@@ -230,7 +230,7 @@ export function seriesVolCheck(series: any[][], lags?: number): any[][] {
  * @helpurl https://localhost:3000/help/seriesbiascheck.html
  * @param series One row or column of numbers; blanks and #N/A are gaps, a text first cell is the label.
  * @param [hacLags] Lags the standard error allows for, a whole number from 0 to n − 1. Default: 4(n/100)^(2/9), rounded down.
- * @returns One row: mean, HAC standard error, t statistic, two-sided p-value.
+ * @returns One row: mean, HAC standard error, t statistic, two-sided p-value (fixed-b reference).
  */
 export function seriesBiasCheck(series: any[][], hacLags?: number): any[][] {
   return cellFunction(() => {

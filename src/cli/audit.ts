@@ -1,25 +1,39 @@
 /**
- * `echolot audit FILE --horizon H [--season M] [--alpha A] [--lags K] [--json]`: the forecast
- * audit of every series — every numeric column, or every id in long format (`--id COL --time COL
- * --value COL`) — each an error series of H-step-ahead forecasts. Every column or id not audited
- * is listed with why.
+ * `echolot audit FILE --horizon H [options]`: the forecast audit of every series — every numeric
+ * column, or every id in long format (`--id COL --time COL --value COL`) — each an error series
+ * of H-step-ahead forecasts, ranked as batch ranks (the series to look at first on top). Every
+ * column or id not audited is listed with why. `--top N` and `--kept` choose rows, `--reasons`
+ * adds each one's reason, `--csv` writes the ranked table as CSV, `--out FILE` writes to a file.
  */
 import { auditBatch, type ForecastAuditOptions } from "../core";
+import { rankedAuditItems, selectRanked } from "../report/batchOrder";
 import { auditText } from "../report/auditText";
+import { auditCsv } from "../report/rankedCsv";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { notAnalysedLines, readManySeries } from "./input";
-import { auditJson, toJsonText } from "./json";
-import { LONG_OPTIONS, numberOption, READ_OPTIONS, type ParsedCommand } from "./options";
+import { readManySeries } from "./input";
+import { auditJson } from "./jsonBatch";
+import {
+  formatOption,
+  LONG_OPTIONS,
+  numberOption,
+  RANKED_OPTIONS,
+  READ_OPTIONS,
+  selectionOption,
+  type ParsedCommand,
+} from "./options";
+import { deliverRanked } from "./rankedOutput";
 
 export const AUDIT_OPTIONS = [
   "horizon",
   "season",
   "alpha",
   "lags",
-  ...READ_OPTIONS,
   ...LONG_OPTIONS,
+  ...READ_OPTIONS,
   "json",
+  "format",
+  ...RANKED_OPTIONS,
 ];
 
 export async function runAudit({ files, values }: ParsedCommand): Promise<string> {
@@ -33,6 +47,8 @@ export async function runAudit({ files, values }: ParsedCommand): Promise<string
       "audit needs --horizon H, how many periods ahead the forecasts were made (1 for one-step-ahead)",
     );
   }
+  const format = formatOption(values, ["text", "json", "csv"]) as "text" | "json" | "csv";
+  const selection = selectionOption(values);
   const options: ForecastAuditOptions = {
     horizon,
     season: numberOption("season", values.season) ?? null,
@@ -46,16 +62,20 @@ export async function runAudit({ files, values }: ParsedCommand): Promise<string
     );
   }
   const result = auditBatch(many.series, options);
-  return values.json === true
-    ? toJsonText({
-        source: many.source,
-        ...auditJson(result, options),
-        notAnalysed: many.notAnalysed,
-      })
-    : [
-        `read: ${many.source}`,
-        "",
-        auditText(result, horizon, options.season ?? null),
-        ...notAnalysedLines(many),
-      ].join("\n");
+  const rows = {
+    shown: selectRanked(rankedAuditItems(result), selection).length,
+    total: result.items.length,
+  };
+  return deliverRanked(format, many, file, values, rows, {
+    csv: () => auditCsv(result, selection),
+    json: () => auditJson(result, options, selection),
+    text: (leftOut) =>
+      auditText(result, {
+        horizon,
+        season: options.season ?? null,
+        selection,
+        reasons: values.reasons === true,
+        leftOut,
+      }),
+  });
 }

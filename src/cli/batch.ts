@@ -1,27 +1,41 @@
 /**
  * `echolot batch FILE [options]`: the noise check of every series — every numeric column, or
  * every id in long format (`--id COL --time COL --value COL`) — with Benjamini–Hochberg q-values
- * across them. Every column or id not analysed is listed with why.
+ * across them, ranked (the series to look at first on top). Every column or id not analysed is
+ * listed with why. `--top N` and `--kept` choose rows, `--reasons` adds each one's reason, `--csv`
+ * writes the ranked table as CSV, `--out FILE` writes to a file.
  *
  * `--format jsonl` writes one line per series without the cross-series step, for batches split
  * across machines; `echolot fdr` merges such parts (fdr.ts).
  */
 import { batchCheck, seriesResult } from "../core";
+import { selectRanked, rankedBatchRows } from "../report/batchOrder";
 import { batchText } from "../report/batchText";
+import { batchCsv } from "../report/rankedCsv";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
-import { notAnalysedLines, readManySeries } from "./input";
-import { batchJson, toJsonText } from "./json";
+import { readManySeries } from "./input";
+import { batchJson } from "./jsonBatch";
 import {
   formatOption,
   LAG_OPTIONS,
   lagOptionsFrom,
   LONG_OPTIONS,
+  RANKED_OPTIONS,
   READ_OPTIONS,
+  selectionOption,
   type ParsedCommand,
 } from "./options";
+import { deliver, deliverRanked } from "./rankedOutput";
 
-export const BATCH_OPTIONS = [...LAG_OPTIONS, ...READ_OPTIONS, ...LONG_OPTIONS, "json", "format"];
+export const BATCH_OPTIONS = [
+  ...LAG_OPTIONS,
+  ...LONG_OPTIONS,
+  ...READ_OPTIONS,
+  "json",
+  "format",
+  ...RANKED_OPTIONS,
+];
 
 export async function runBatch({ files, values }: ParsedCommand): Promise<string> {
   const file = files[0];
@@ -29,7 +43,13 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
     throw new UsageError(
       "batch needs a CSV file: echolot batch FILE.csv (or - for standard input)",
     );
-  const format = formatOption(values, ["text", "json", "jsonl"]);
+  const format = formatOption(values, ["text", "json", "jsonl", "csv"]);
+  const selection = selectionOption(values);
+  if (format === "jsonl" && (selection.top !== null || selection.keptOnly)) {
+    throw new UsageError(
+      "--top and --kept rank after the false-discovery step, which --format jsonl leaves to echolot fdr: give them to fdr",
+    );
+  }
   const options = lagOptionsFrom(values);
   const many = await readManySeries(readingFrom(file, values), values);
   if (format === "jsonl") {
@@ -37,7 +57,11 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
     many.series.forEach((series, i) =>
       lines.push(JSON.stringify(seriesResult(series, i, options))),
     );
-    return lines.join("\n");
+    return deliver(lines.join("\n"), values, [file], {
+      source: many.source,
+      rows: lines.length,
+      total: lines.length,
+    });
   }
   let result;
   try {
@@ -47,13 +71,22 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
     if (left !== "" && error instanceof Error) error.message += ` (not analysed: ${left})`;
     throw error;
   }
-  if (format === "json") {
-    return toJsonText({ source: many.source, ...batchJson(result), notAnalysed: many.notAnalysed });
-  }
-  const text = batchText(result, {
-    maxLag: options.maxLag ?? null,
-    season: options.season ?? null,
-    testKind: options.testKind ?? "ljung-box",
+  const rows = {
+    shown: selectRanked(rankedBatchRows(result), selection).length,
+    total: result.rows.length,
+  };
+  const batch = result;
+  return deliverRanked(format, many, file, values, rows, {
+    csv: () => batchCsv(batch, selection),
+    json: () => batchJson(batch, selection),
+    text: (leftOut) =>
+      batchText(batch, {
+        maxLag: options.maxLag ?? null,
+        season: options.season ?? null,
+        testKind: options.testKind ?? "ljung-box",
+        selection,
+        reasons: values.reasons === true,
+        leftOut,
+      }),
   });
-  return [`read: ${many.source}`, "", text, ...notAnalysedLines(many)].join("\n");
 }

@@ -13,7 +13,7 @@ import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
 import { releaseBetweenSteps } from "./memory";
-import { lagTableJson, sideChecksJson, toJsonText } from "./json";
+import { headlineJson, JSON_VERSION, lagTableJson, sideChecksJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
   lagOptionsFrom,
@@ -47,6 +47,7 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
   const headline = headlineOf(plain, robust, side.volatility, side.bias);
   return values.json === true
     ? toJsonText({
+        version: JSON_VERSION,
         source,
         headline: headlineJson(headline),
         ...lagTableJson(result),
@@ -58,9 +59,4 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
 /** The headline first: its title, then every finding that fired, one per line. */
 function headlineText(headline: Headline): string {
   return [`headline: ${headline.title}`, ...headline.findings.map((f) => `  ${f}`)].join("\n");
-}
-
-function headlineJson(headline: Headline): Record<string, unknown> {
-  const { word, title, reading, switched, biased, volatile, findings, note } = headline;
-  return { word, title, reading, switched, biased, volatile, findings, note };
 }

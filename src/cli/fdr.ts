@@ -2,18 +2,23 @@
  * `echolot fdr [PART.jsonl …] [--json | --format text|json|jsonl]`: the last stage of a batch split
  * across machines. It merges the parts that `echolot batch --format jsonl` wrote (files, or
  * standard input when none or `-` is given) and applies Benjamini–Hochberg across all of them:
- * the same q-values and verdicts as one whole batch, whatever the split. Rows come out by q-value,
- * ties by id, so the order does not depend on the split either.
+ * the same q-values and verdicts as one whole batch, whatever the split. Rows come out in the
+ * batch's ranked order (core/batchRanking.ts; ties by id), so the order does not depend on the
+ * split either; `--top`, `--kept`, `--reasons`, `--csv` and `--out` work as for batch.
  */
 import { createReadStream } from "node:fs";
 import { createInterface } from "node:readline";
-import { invalid, mergeSeriesResults, rankedRows, TEST_KINDS, type SeriesResult } from "../core";
+import { invalid, mergeSeriesResults, TEST_KINDS, type SeriesResult } from "../core";
 import { batchText } from "../report/batchText";
 import { UsageError } from "./errors";
-import { batchJson, toJsonText } from "./json";
-import { formatOption, type ParsedCommand } from "./options";
+import { rankedBatchRows, selectRanked } from "../report/batchOrder";
+import { batchCsv } from "../report/rankedCsv";
+import { toJsonText } from "./json";
+import { batchJson } from "./jsonBatch";
+import { formatOption, RANKED_OPTIONS, selectionOption, type ParsedCommand } from "./options";
+import { deliver } from "./rankedOutput";
 
-export const FDR_OPTIONS = ["json", "format"];
+export const FDR_OPTIONS = ["json", "format", ...RANKED_OPTIONS];
 
 const VERDICTS = new Set(["clear", "watch", "structure", "short"]);
 const REFERENCES = new Set(["permutation", "chi-square", "monte-carlo"]);
@@ -92,7 +97,8 @@ async function readPart(file: string, into: SeriesResult[]): Promise<void> {
 }
 
 export async function runFdr({ files, values }: ParsedCommand): Promise<string> {
-  const format = formatOption(values, ["text", "json", "jsonl"]);
+  const format = formatOption(values, ["text", "json", "jsonl", "csv"]);
+  const selection = selectionOption(values);
   if (files.length === 0 && process.stdin.isTTY === true) {
     throw new UsageError(
       "fdr needs the parts: echolot fdr PART.jsonl … (or - to read them from standard input)",
@@ -105,10 +111,14 @@ export async function runFdr({ files, values }: ParsedCommand): Promise<string> 
   for (const part of parts) await readPart(part, results);
   const batch = mergeSeriesResults(results);
   const orNull = (x: number) => (Number.isNaN(x) ? null : x);
-  if (format === "json") return toJsonText(batchJson(batch));
+  const shown = selectRanked(rankedBatchRows(batch), selection);
+  const said = { source: null, rows: shown.length, total: batch.rows.length };
+  if (format === "json")
+    return deliver(toJsonText(batchJson(batch, selection)), values, parts, said);
+  if (format === "csv") return deliver(batchCsv(batch, selection), values, parts, said);
   if (format === "jsonl") {
-    return rankedRows(batch)
-      .map((row) =>
+    const lines = shown
+      .map(({ item: row }) =>
         JSON.stringify({
           id: row.label,
           n: row.n,
@@ -123,7 +133,15 @@ export async function runFdr({ files, values }: ParsedCommand): Promise<string> 
         }),
       )
       .join("\n");
+    return deliver(lines, values, parts, said);
   }
   const first = results[0] as SeriesResult;
-  return batchText(batch, { maxLag: null, season: null, testKind: first.test });
+  const text = batchText(batch, {
+    maxLag: null,
+    season: null,
+    testKind: first.test,
+    selection,
+    reasons: values.reasons === true,
+  });
+  return deliver(text, values, parts, said);
 }

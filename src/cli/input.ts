@@ -6,6 +6,7 @@ import {
   columnPlace,
   columnSeries,
   firstSeriesColumn,
+  formatNameList,
   leftOutText,
   LongBuilder,
   seriesColumnsOf,
@@ -49,7 +50,7 @@ export async function readOneSeries(
       );
     if (column === undefined) {
       const names = table.hasHeader
-        ? `a name (${table.columns.map((c) => `"${c.name}"`).join(", ")}) or `
+        ? `a name (${formatNameList(table.columns.map((c) => c.name))}) or `
         : "";
       throw new UsageError(
         `--column ${choice} matches no column of ${reading.origin}: give ${names}a number from 1 to ${table.columns.length}`,

@@ -1,20 +1,97 @@
 /**
  * The `check --json` document: the lag table's fields under stable names. Numbers keep full
  * precision (JSON.stringify writes the shortest round-trip form); an undefined figure (NaN) is
- * written as null.
+ * written as null, so every `number` below may be null in the text. Every document of the CLI
+ * (check, batch, audit, fdr) starts with `version`, the JSON format's version (README, "JSON
+ * documents"): it rises when a field is renamed or removed or changes meaning, not when one is
+ * added.
  */
 import type {
-  AuditBatch,
-  BatchCheck,
-  ForecastAuditOptions,
+  BandKind,
+  Headline,
   LagTable,
+  PReference,
   ReferencedP,
+  TestKind,
   VerdictLevels,
+  VerdictWord,
 } from "../core";
-import { isPValueBound, rankedAuditItems, rankedRows } from "../core";
+import { isPValueBound } from "../core";
 import type { SideChecks } from "../report/sideChecksText";
 
-export function lagTableJson(table: LagTable): Record<string, unknown> {
+/**
+ * The JSON format's version. 2: batch and audit entries in ranked order with `rank`, `position`
+ * and `kept`, the joint-test statistic named `statistic` (it was `q`, beside `qValue`).
+ */
+export const JSON_VERSION = 2;
+
+export interface LagJson {
+  readonly lag: number;
+  readonly corr: number;
+  readonly partial: number;
+  readonly band: number;
+  readonly beyond: boolean;
+  readonly z: number;
+  readonly pLag: number;
+  readonly pSidak: number;
+  readonly pBound: boolean;
+  readonly outer: boolean;
+  readonly jointQ: number;
+  readonly jointDf: number;
+  readonly jointP: number;
+  readonly jointPReference: "chi-square";
+}
+
+export interface ReferenceJson {
+  readonly reference: PReference;
+  readonly draws: number;
+  readonly pBound: boolean;
+}
+
+/** The levels the verdict was judged at, under the core's names. */
+export type LevelsJson = Pick<
+  VerdictLevels,
+  "reference" | "draws" | "structureLevel" | "criticalQ" | "outerLevel" | "watchLevel"
+>;
+
+export interface LagTableJson {
+  readonly label: string;
+  readonly n: number;
+  readonly gaps: number;
+  readonly maxLag: number;
+  readonly alpha: number;
+  readonly bandKind: BandKind;
+  readonly testKind: TestKind;
+  readonly season: number | null;
+  readonly fittedParams: number;
+  readonly mean: number;
+  readonly variance: number;
+  readonly innerLevel: number;
+  readonly outerLevel: number;
+  readonly lags: readonly LagJson[];
+  /** The joint test over all K lags; `q` is its statistic (there is no q-value in this document). */
+  readonly joint: {
+    readonly test: string;
+    readonly q: number;
+    readonly df: number;
+    readonly p: number;
+    readonly reference: "chi-square";
+    readonly pBound: boolean;
+  };
+  readonly verdictJoint: { readonly p: number } & ReferenceJson;
+  readonly levels: LevelsJson;
+  readonly jointLevel: number;
+  readonly falseAlarm: {
+    readonly tested: number;
+    readonly expected: number;
+    readonly beyond: number;
+    readonly beyondLags: readonly number[];
+    readonly chance: number;
+  };
+  readonly verdict: { readonly word: VerdictWord; readonly reason: string };
+}
+
+export function lagTableJson(table: LagTable): LagTableJson {
   return {
     label: table.label,
     n: table.n,
@@ -71,14 +148,40 @@ export function lagTableJson(table: LagTable): Record<string, unknown> {
  * The side checks under the names the `check --json` document promises; a check the data could
  * not support is null, and its reason is listed under `notComputed`.
  */
-export function sideChecksJson(side: SideChecks): Record<string, unknown> {
+export interface SideChecksJson {
+  readonly volatility: {
+    readonly lm: number;
+    readonly df: number;
+    readonly p: number;
+    readonly mcleodLiQ: number;
+    readonly mcleodLiP: number;
+  } | null;
+  readonly bias: {
+    readonly mean: number;
+    readonly se: number;
+    readonly t: number;
+    readonly p: number;
+    readonly hacLags: number;
+  } | null;
+  readonly runs: {
+    readonly runs: number;
+    readonly expected: number;
+    readonly z: number;
+    readonly p: number;
+  } | null;
+  readonly normality: { readonly jb: number; readonly p: number } | null;
+  /** Why a check is null, by its name; absent when every check was computed. */
+  readonly notComputed?: Readonly<Record<string, string>>;
+}
+
+export function sideChecksJson(side: SideChecks): SideChecksJson {
   const notComputed: Record<string, string> = {};
-  const field = <T>(name: string, value: T | string, shape: (v: T) => Record<string, unknown>) => {
+  const field = <T, J>(name: string, value: T | string, shape: (v: T) => J): J | null => {
     if (typeof value !== "string") return shape(value);
     notComputed[name] = value;
     return null;
   };
-  const document: Record<string, unknown> = {
+  const document = {
     volatility: field("volatility", side.volatility, (v) => ({
       lm: v.lm,
       df: v.df,
@@ -96,128 +199,27 @@ export function sideChecksJson(side: SideChecks): Record<string, unknown> {
     runs: field("runs", side.runs, (r) => ({ runs: r.runs, expected: r.expected, z: r.z, p: r.p })),
     normality: field("normality", side.normality, (j) => ({ jb: j.jb, p: j.p })),
   };
-  if (Object.keys(notComputed).length > 0) document.notComputed = notComputed;
-  return document;
+  return Object.keys(notComputed).length > 0 ? { ...document, notComputed } : document;
 }
 
-/** The `batch --json` document: one entry per series in the order of the file. */
-export function batchJson(batch: BatchCheck): Record<string, unknown> {
-  return {
-    alpha: batch.alpha,
-    series: rankedRows(batch).map((row) => ({
-      label: row.label,
-      n: row.n,
-      q: row.q,
-      df: row.df,
-      p: row.p,
-      qValue: row.qValue,
-      kept: row.kept,
-      word: row.headline?.word ?? null,
-      title: row.headline?.title ?? null,
-      finding: row.headline?.finding ?? null,
-      reading: row.reading,
-      volatilityP: row.volatilityP,
-      mean: row.mean,
-      biasP: row.biasP,
-      biasQValue: row.biasQValue,
-      verdict: row.verdict,
-      reason: row.reason,
-    })),
-    flaggedRaw: batch.flaggedRaw,
-    flaggedFdr: batch.flaggedFdr,
-    biasFlaggedRaw: batch.biasFlaggedRaw,
-    biasFlaggedFdr: batch.biasFlaggedFdr,
-  };
-}
+/** The headline of `check --json` (core/headline.ts): the word, how it reads, every finding. */
+export type HeadlineJson = Pick<
+  Headline,
+  "word" | "title" | "reading" | "switched" | "biased" | "volatile" | "findings" | "note"
+>;
 
-/**
- * The `audit --json` document: the batch shape (q, df and p are the dependence test of lags h..K,
- * qValue its Benjamini–Hochberg value across the series, verdict the audit's), with each series'
- * bias and lags beside it. `flaggedRaw`/`flaggedFdr` count the dependence tests; `biasFlaggedRaw`/
- * `biasFlaggedFdr` the bias tests. A series that could not be audited has null figures and its
- * reason.
- */
-export function auditJson(
-  batch: AuditBatch,
-  options: ForecastAuditOptions,
-): Record<string, unknown> {
-  return {
-    horizon: options.horizon,
-    season: options.season ?? null,
-    alpha: batch.alpha,
-    series: rankedAuditItems(batch).map((item) => {
-      const audit = item.audit;
-      if (audit === null) {
-        return {
-          label: item.label,
-          n: null,
-          q: null,
-          df: null,
-          p: null,
-          qValue: null,
-          verdict: null,
-          reason: item.problem,
-        };
-      }
-      return {
-        label: item.label,
-        n: audit.n,
-        q: audit.dependenceTest.q,
-        df: audit.dependenceTest.df,
-        p: audit.levels.jointP.p,
-        ...referenceFields(audit.levels.jointP),
-        pChiSquare: audit.dependenceTest.p,
-        qValue: item.dependenceQValue,
-        kept: item.kept,
-        biased: item.biased,
-        word: item.headline?.word ?? null,
-        title: item.headline?.title ?? null,
-        finding: item.headline?.finding ?? null,
-        verdict: audit.verdict.word,
-        reason: audit.verdict.reason,
-        firstLag: audit.dependenceTest.firstLag,
-        maxLag: audit.maxLag,
-        dependence: audit.dependence.word,
-        bias: {
-          mean: audit.bias.mean,
-          se: audit.bias.se,
-          t: audit.bias.tCorrected,
-          tUncorrected: audit.bias.t,
-          df: audit.bias.df,
-          p: audit.bias.p,
-          reference: "student-t",
-          qValue: item.biasQValue,
-          longRunLags: audit.bias.horizon - 1,
-          flagged: audit.levels.biasFlagged,
-          level: audit.levels.biasLevel,
-        },
-        levels: levelFields(audit.levels),
-        lags: audit.rows.map((row) => ({
-          lag: row.lag,
-          corr: row.correlation,
-          band: row.band,
-          z: row.z,
-          pLag: row.pLag,
-          counted: row.counted,
-          beyond: row.beyond,
-          outer: row.outer,
-        })),
-      };
-    }),
-    flaggedRaw: batch.flaggedRaw,
-    flaggedFdr: batch.flaggedFdr,
-    biasFlaggedRaw: batch.biasFlaggedRaw,
-    biasFlaggedFdr: batch.biasFlaggedFdr,
-  };
+export function headlineJson(headline: Headline): HeadlineJson {
+  const { word, title, reading, switched, biased, volatile, findings, note } = headline;
+  return { word, title, reading, switched, biased, volatile, findings, note };
 }
 
 /** Where a p comes from: its reference, the draws behind it, and whether it is only a bound. */
-export function referenceFields(rp: ReferencedP): Record<string, unknown> {
+export function referenceFields(rp: ReferencedP): ReferenceJson {
   return { reference: rp.reference, draws: rp.draws, pBound: rp.bound || isPValueBound(rp.p) };
 }
 
 /** The levels the verdict was judged at. */
-export function levelFields(levels: VerdictLevels): Record<string, unknown> {
+export function levelFields(levels: VerdictLevels): LevelsJson {
   return {
     reference: levels.reference,
     draws: levels.draws,

@@ -1,7 +1,9 @@
 /**
- * The `echolot` command line: CSV in, text or JSON out. Exit 0 on success (and when the reader of
- * the output closes the pipe early); exit 2 on bad input or arguments or a failed write, with one
- * message on stderr and nothing on stdout; exit 1 on an internal failure.
+ * The `echolot` command line: CSV in, text, JSON or CSV out. Exit 0 on success (and when the
+ * reader of the output closes the pipe early); exit 2 on bad input or arguments or a failed
+ * write, with one message on stderr and nothing on stdout; exit 1 on an internal failure.
+ * `echolot --version` (or `-V`) prints the version; `--help` (or `-h`) after any command prints
+ * that command's usage and options.
  */
 import { isEcholotError } from "../core";
 import { AUDIT_OPTIONS, runAudit } from "./audit";
@@ -12,27 +14,10 @@ import { FDR_OPTIONS, runFdr } from "./fdr";
 import { REPORT_OPTIONS, runReport } from "./report";
 import { runWorkbook, WORKBOOK_OPTIONS } from "./workbook";
 import { UsageError } from "./errors";
+import { commandHelp, mainHelp } from "./help";
 import { parseCommand, type ParsedCommand } from "./options";
 import { writeStdout } from "./output";
-
-const READ = "[--delimiter ,|;|tab] [--decimal .|,] [--na WORD,…] [--percent] [--no-header]";
-const LAGS =
-  "[--lags K] [--season M] [--fitted P] [--alpha A] [--bands noise|bartlett|robust] [--test ljung-box|box-pierce|robust|squares]";
-const LONG = "[--id COL --time COL --value COL]";
-
-const USAGES: Readonly<Record<string, string>> = {
-  check: `echolot check FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--json]`,
-  audit: `echolot audit FILE.csv|- --horizon H [--season M] [--alpha A] [--lags K] ${LONG} ${READ} [--json]`,
-  batch: `echolot batch FILE.csv|- ${LAGS} ${LONG} ${READ} [--json | --format text|json|jsonl]`,
-  report: `echolot report FILE.csv|- [--column NAME|N] ${LAGS} ${READ} --out report.html [--force]`,
-  workbook: `echolot workbook FILE.csv|- [--column NAME|N] ${LAGS} ${READ} [--batch] --out book.xlsx [--force]`,
-  fdr: "echolot fdr [PART.jsonl … | -] [--json | --format text|json|jsonl]",
-  demo: "echolot demo",
-};
-
-const USAGE = `usage:\n${Object.values(USAGES)
-  .map((u) => `  ${u}`)
-  .join("\n")}`;
+import { ECHOLOT_VERSION } from "./version";
 
 interface Command {
   readonly options: readonly string[];
@@ -62,18 +47,30 @@ function cliWording(message: string): string {
     .replace(/^horizon\b/, "--horizon");
 }
 
+function helpOf(name: string | undefined): string {
+  const command = name === undefined ? undefined : COMMANDS[name];
+  return command === undefined || name === undefined
+    ? mainHelp()
+    : commandHelp(name, command.options);
+}
+
 async function run(argv: readonly string[]): Promise<{ status: number; output: string }> {
   const [name, ...rest] = argv;
-  if (name === "--help" || name === "-h") return { status: 0, output: USAGE };
+  if (name === "--help" || name === "-h") return { status: 0, output: mainHelp() };
+  if (name === "--version" || name === "-V") return { status: 0, output: ECHOLOT_VERSION };
   if (name === "help") {
-    const usage = rest[0] === undefined ? undefined : USAGES[rest[0]];
-    return { status: 0, output: usage === undefined ? USAGE : `usage: ${usage}` };
+    if (rest[0] !== undefined && COMMANDS[rest[0]] === undefined) {
+      throw new UsageError(`unknown command "${rest[0]}": echolot --help lists the commands`);
+    }
+    return { status: 0, output: helpOf(rest[0]) };
   }
-  if (name === undefined) throw new UsageError(`no command given\n${USAGE}`);
+  if (name === undefined) throw new UsageError(`no command given\n${mainHelp()}`);
   const command = COMMANDS[name];
-  if (command === undefined) throw new UsageError(`unknown command "${name}"\n${USAGE}`);
+  if (command === undefined) {
+    throw new UsageError(`unknown command "${name}": echolot --help lists the commands`);
+  }
   const parsed = parseCommand(name, rest, command.options, command.maxFiles);
-  if (parsed.help) return { status: 0, output: `usage: ${USAGES[name] ?? USAGE}` };
+  if (parsed.help) return { status: 0, output: helpOf(name) };
   return { status: 0, output: await command.run(parsed) };
 }
 

@@ -1,8 +1,9 @@
 /**
  * The command-line options, read strictly and the same way by every command: each command names
- * the options it takes and refuses any other; an option given twice is refused (not "the last
- * one wins"); numbers are written in decimal ("0x10", "12abc" and "1e" are refused); `--help`
- * after any command prints that command's usage.
+ * the options it takes and refuses any other with its own one-line message (never the parser's
+ * text); an option given twice is refused (not "the last one wins"); numbers are written in
+ * decimal ("0x10", "12abc" and "1e" are refused); `--help` or `-h` anywhere after a command
+ * prints that command's help, whatever else is on the line.
  */
 import { parseArgs } from "node:util";
 import {
@@ -13,34 +14,39 @@ import {
   type Delimiter,
   type LagOptions,
 } from "../core";
+import type { RankedSelection } from "../report/batchOrder";
 import { UsageError } from "./errors";
 
-type Spec = { readonly type: "string" | "boolean" };
+/** An option's kind and, for a string option, how usage names its value. */
+type Spec = { readonly type: "boolean" } | { readonly type: "string"; readonly value: string };
 
-/** Every option of the command line, by name, with how it is spelled in usage. */
+/** Every option of the command line, by name, with how usage names its value. */
 const OPTIONS: Readonly<Record<string, Spec>> = {
-  column: { type: "string" },
-  lags: { type: "string" },
-  season: { type: "string" },
-  fitted: { type: "string" },
-  alpha: { type: "string" },
-  bands: { type: "string" },
-  test: { type: "string" },
-  horizon: { type: "string" },
+  column: { type: "string", value: "NAME|N" },
+  lags: { type: "string", value: "K" },
+  season: { type: "string", value: "M" },
+  fitted: { type: "string", value: "P" },
+  alpha: { type: "string", value: "A" },
+  bands: { type: "string", value: "noise|bartlett|robust" },
+  test: { type: "string", value: "ljung-box|box-pierce|robust|squares" },
+  horizon: { type: "string", value: "H" },
   json: { type: "boolean" },
-  format: { type: "string" },
-  out: { type: "string" },
+  format: { type: "string", value: "FORMAT" },
+  csv: { type: "boolean" },
+  top: { type: "string", value: "N" },
+  kept: { type: "boolean" },
+  reasons: { type: "boolean" },
+  out: { type: "string", value: "FILE" },
   force: { type: "boolean" },
   batch: { type: "boolean" },
-  delimiter: { type: "string" },
-  decimal: { type: "string" },
-  na: { type: "string" },
+  delimiter: { type: "string", value: ",|;|tab" },
+  decimal: { type: "string", value: ".|," },
+  na: { type: "string", value: "WORD,…" },
   percent: { type: "boolean" },
   "no-header": { type: "boolean" },
-  id: { type: "string" },
-  time: { type: "string" },
-  value: { type: "string" },
-  help: { type: "boolean" },
+  id: { type: "string", value: "COL" },
+  time: { type: "string", value: "COL" },
+  value: { type: "string", value: "COL" },
 };
 
 /** The options that say how a file is read, taken by every command that reads one. */
@@ -49,19 +55,66 @@ export const READ_OPTIONS = ["delimiter", "decimal", "na", "percent", "no-header
 export const LAG_OPTIONS = ["lags", "season", "fitted", "alpha", "bands", "test"] as const;
 /** The long-format columns. */
 export const LONG_OPTIONS = ["id", "time", "value"] as const;
+/** What to show of a ranked table, and where to write it (batch, audit, fdr). */
+export const RANKED_OPTIONS = ["top", "kept", "reasons", "csv", "out", "force"] as const;
 
 export type OptionValues = Readonly<Record<string, string | boolean | undefined>>;
 
 export interface ParsedCommand {
   readonly files: readonly string[];
   readonly values: OptionValues;
-  /** `--help` was given: print the command's usage and nothing else. */
+  /** `--help` was given: print the command's help and nothing else. */
   readonly help: boolean;
+}
+
+/** How usage spells an option: "--lags K", "--json". */
+export function optionUsage(name: string): string {
+  const spec = OPTIONS[name];
+  return spec?.type === "string" ? `--${name} ${spec.value}` : `--${name}`;
+}
+
+/** Whether `argv` asks for help: `--help` or `-h` before any `--`. */
+export function asksForHelp(argv: readonly string[]): boolean {
+  for (const arg of argv) {
+    if (arg === "--") return false;
+    if (arg === "--help" || arg === "-h") return true;
+  }
+  return false;
+}
+
+/** Edit distance of two short names (insertions, deletions, substitutions), for "did you mean". */
+function distance(a: string, b: string): number {
+  let previous = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const current = [i];
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      current[j] = Math.min(
+        (previous[j] as number) + 1,
+        (current[j - 1] as number) + 1,
+        (previous[j - 1] as number) + cost,
+      );
+    }
+    previous = current;
+  }
+  return previous[b.length] as number;
+}
+
+function unknownOption(command: string, raw: string, accepted: readonly string[]): UsageError {
+  const name = raw.replace(/^-+/, "").toLowerCase();
+  const near = accepted.find((a) => a === name || distance(a, name) <= (name.length > 4 ? 2 : 1));
+  const hint = near === undefined ? "" : ` (did you mean --${near}?)`;
+  const takes =
+    accepted.length === 0
+      ? `${command} takes no options`
+      : `${command} takes: ${accepted.map((a) => `--${a}`).join(", ")}`;
+  return new UsageError(`unknown option ${raw} for ${command}${hint}; ${takes}`);
 }
 
 /**
  * Parses a command's arguments against the options it takes. `maxFiles` is how many file
- * arguments it takes (Infinity for `fdr`); `-` is standard input.
+ * arguments it takes (Infinity for `fdr`); `-` is standard input. The parser runs leniently and
+ * every token is checked here, so each mistake gets a message of ours.
  */
 export function parseCommand(
   command: string,
@@ -69,42 +122,51 @@ export function parseCommand(
   accepted: readonly string[],
   maxFiles = 1,
 ): ParsedCommand {
-  const options: Record<string, Spec> = { help: { type: "boolean" } };
-  for (const name of accepted) options[name] = OPTIONS[name] as Spec;
-  let parsed: ReturnType<typeof parseArgs>;
-  try {
-    parsed = parseArgs({
-      args: [...argv],
-      options,
-      allowPositionals: true,
-      strict: true,
-      tokens: true,
-    });
-  } catch (error) {
-    const message = (error as Error).message.replace(/\s*\n\s*/g, " ");
-    const unknown = /Unknown option '(--?[^']+)'/.exec(message);
-    if (unknown !== null) {
-      const takes = accepted.map((a) => `--${a}`).join(", ");
+  if (asksForHelp(argv)) return { files: [], values: {}, help: true };
+  const options: Record<string, { type: Spec["type"] }> = {};
+  for (const name of accepted) options[name] = { type: (OPTIONS[name] as Spec).type };
+  const { tokens } = parseArgs({
+    args: [...argv],
+    options,
+    allowPositionals: true,
+    strict: false,
+    tokens: true,
+  });
+  const values: Record<string, string | boolean> = {};
+  const files: string[] = [];
+  for (const token of tokens) {
+    if (token.kind === "positional") files.push(token.value);
+    if (token.kind !== "option") continue;
+    const spec = accepted.includes(token.name) ? OPTIONS[token.name] : undefined;
+    if (spec === undefined) throw unknownOption(command, token.rawName, accepted);
+    if (token.name in values) throw new UsageError(`--${token.name} is given twice; give it once`);
+    if (spec.type === "boolean") {
+      if (token.value !== undefined) {
+        throw new UsageError(
+          `--${token.name} takes no value (got ${token.rawName}=${token.value})`,
+        );
+      }
+      values[token.name] = true;
+      continue;
+    }
+    if (token.value === undefined) {
+      throw new UsageError(`--${token.name} needs a value: --${token.name} ${spec.value}`);
+    }
+    if (!token.inlineValue && token.value.startsWith("-") && token.value !== "-") {
       throw new UsageError(
-        `${command} does not take ${unknown[1]}${takes === "" ? "; it takes no options" : `; it takes ${takes}`}`,
+        `--${token.name} needs a value: --${token.name} ${spec.value} (${token.value} after it reads as an option; a value starting with - is written --${token.name}=VALUE)`,
       );
     }
-    throw new UsageError(message);
+    values[token.name] = token.value;
   }
-  const seen = new Set<string>();
-  for (const token of parsed.tokens ?? []) {
-    if (token.kind !== "option") continue;
-    if (seen.has(token.name)) {
-      throw new UsageError(`--${token.name} is given twice; give it once`);
-    }
-    seen.add(token.name);
+  if (files.length > maxFiles) {
+    throw new UsageError(
+      maxFiles === 0
+        ? `${command} takes no file (got ${files.join(" ")})`
+        : `expected one CSV file, got ${files.length}: ${files.join(" ")}`,
+    );
   }
-  const values = parsed.values as OptionValues;
-  const files = parsed.positionals;
-  if (values.help !== true && files.length > maxFiles) {
-    throw new UsageError(`expected one CSV file, got ${files.length}: ${files.join(" ")}`);
-  }
-  return { files, values, help: values.help === true };
+  return { files, values, help: false };
 }
 
 /** A string option, or undefined when absent. */
@@ -164,21 +226,38 @@ export function gapWordsOption(values: OptionValues): string[] {
   return words;
 }
 
-/** The output format of batch-like commands: `--json` or `--format text|json|jsonl`. */
-export function formatOption(
-  values: OptionValues,
-  allowed: readonly string[],
-): "text" | "json" | "jsonl" {
+export type OutputFormat = "text" | "json" | "jsonl" | "csv";
+
+/**
+ * The output format of batch-like commands: `--json`, `--csv` or `--format text|json|jsonl|csv`,
+ * at most one of them.
+ */
+export function formatOption(values: OptionValues, allowed: readonly OutputFormat[]): OutputFormat {
   const format = textOption(values, "format");
-  if (format !== undefined && values.json === true) {
-    throw new UsageError("give either --json or --format, not both");
+  const given = [
+    values.json === true ? "--json" : "",
+    values.csv === true ? "--csv" : "",
+    format === undefined ? "" : "--format",
+  ].filter((g) => g !== "");
+  if (given.length > 1) {
+    throw new UsageError(`give only one of ${given.join(", ")}: each chooses the output format`);
   }
   if (values.json === true) return "json";
+  if (values.csv === true) return "csv";
   if (format === undefined) return "text";
-  if (!allowed.includes(format)) {
+  if (!allowed.includes(format as OutputFormat)) {
     throw new UsageError(
       `--format must be ${allowed.map((a) => `"${a}"`).join(" or ")} (got "${format}")`,
     );
   }
-  return format as "text" | "json" | "jsonl";
+  return format as OutputFormat;
+}
+
+/** `--top N` (a whole number from 1) and `--kept`: which ranked rows to show. */
+export function selectionOption(values: OptionValues): RankedSelection {
+  const top = numberOption("top", values.top);
+  if (top !== undefined && !(Number.isInteger(top) && top >= 1)) {
+    throw new UsageError(`--top must be a whole number from 1 (got "${String(values.top)}")`);
+  }
+  return { top: top ?? null, keptOnly: values.kept === true };
 }

@@ -68,9 +68,9 @@ export async function runReport({ files, values }: ParsedCommand): Promise<strin
   if (single !== undefined) {
     const report = seriesReport(single.series, options);
     html = seriesReportHtml(report, { ...meta, source: `${name}, column “${single.label}”` });
-    const badge = BADGES[report.table.verdict.word];
+    const badge = BADGES[report.headline.word];
     const shown = report.table.label === "" ? "the series" : report.table.label;
-    said = `${shown}, ${badge.shape} ${badge.word}`;
+    said = `${shown}, ${badge.shape} ${report.headline.title}`;
   }
   writeOutFile(out, html!, values.force === true, [file]);
   return `read: ${source}\nwrote ${out}: ${said!}`;
@@ -100,6 +100,6 @@ function batchReport(
   });
   return {
     html,
-    said: `batch report of ${columns.length} columns, ${batch.flaggedFdr} flagged after the false-discovery step`,
+    said: `batch report of ${columns.length} columns, ${batch.flaggedFdr} kept after the false-discovery step${batch.biasFlaggedFdr > 0 ? `, ${batch.biasFlaggedFdr} biased` : ""}`,
   };
 }

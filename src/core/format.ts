@@ -50,6 +50,19 @@ export function formatLevel(alpha: number): string {
 }
 
 /**
+ * Names for a message, quoted, at most `most` of them: `"a", "b", "c"` or
+ * `"a", "b", … "j" and 141 more` (a file of 151 columns must not fill the screen).
+ */
+export function formatNameList(names: readonly string[], most = 10): string {
+  const shown = names
+    .slice(0, most)
+    .map((name) => `"${name}"`)
+    .join(", ");
+  const rest = names.length - most;
+  return rest > 0 ? `${shown} and ${rest} more` : shown;
+}
+
+/**
  * "lag 7", "lags 7, 19", "lags 1, 2, 3 and 9 more".
  *
  * @example

@@ -17,6 +17,7 @@
  */
 import { calendarDate, dayNumber, isoDate, yyyymmddDay } from "./dates";
 import { invalid } from "./errors";
+import { formatNameList } from "./format";
 import { GrowableNumbers } from "./growable";
 import { seriesFromColumn } from "./intake";
 import { cellRefusal, type Offender } from "./table";
@@ -78,7 +79,7 @@ function resolveColumn(
     if (index >= 0 && index < headers.length) return index;
   }
   invalid(
-    `the ${role} column "${choice}" matches no column of ${origin}: give a name (${headers.map((h) => `"${h}"`).join(", ")}) or a number from 1 to ${headers.length}`,
+    `the ${role} column "${choice}" matches no column of ${origin}: give a name (${formatNameList(headers)}) or a number from 1 to ${headers.length}`,
   );
 }
 

@@ -7,8 +7,12 @@
  *   one column. A semicolon file is the usual export where the comma is the decimal mark.
  * - Decimal mark: a comma when the delimiter is not a comma and the sampled fields hold numbers
  *   written with a decimal comma ("-0,25") and none with a decimal point.
+ * - One decimal-comma number a line ("-0,272644"), on every sampled line (at least two): one
+ *   column with a decimal comma. Read with the comma as delimiter it would be two columns of whole
+ *   numbers whose second column is never negative, which no error or residual column is; a header
+ *   row or a delimiter choice still reads such text as two columns.
  * Common practice (no source): spreadsheet programs in decimal-comma locales export `;`-separated
- * files; tab-separated text is what copying cells gives.
+ * files; tab-separated text is what copying cells gives, one column one value a line.
  */
 import { invalid } from "./errors";
 
@@ -79,6 +83,14 @@ function detectDecimal(lines: readonly string[], delimiter: Delimiter): DecimalM
   return commas > 0 && points === 0 ? "," : ".";
 }
 
+/** Every line one number written with a decimal comma, and at least two lines. */
+function decimalCommaColumn(lines: readonly string[]): boolean {
+  return (
+    lines.length >= 2 &&
+    lines.every((line) => /^[+-]?\d+,\d+$/.test(line.trim().replace(/^"(.*)"$/, "$1")))
+  );
+}
+
 /**
  * The dialect of a file from the text at its start (`complete` when that is the whole file),
  * with any choice the user gave taking precedence. A comma cannot be both delimiter and decimal
@@ -93,6 +105,9 @@ export function detectDialect(
     invalid("the comma cannot be both the delimiter and the decimal mark");
   }
   const lines = sampleLines(sample, complete);
+  if (given.delimiter === undefined && given.decimal === undefined && decimalCommaColumn(lines)) {
+    return { delimiter: "\t", decimal: "," };
+  }
   const delimiter = given.delimiter ?? detectDelimiter(lines, given.decimal);
   const decimal = given.decimal ?? detectDecimal(lines, delimiter);
   return { delimiter, decimal };

@@ -1,36 +1,83 @@
 /**
- * The forecast audit of one or many error series as fixed-width text for the terminal: per series
- * the bias (mean, Newey–West se, t, p and its q-value across the series), the lags below the
- * horizon that h-step errors are expected to carry (shown, not counted), the joint test of the
- * lags from h on with its q-value, and the verdict; then the reasons of every series that is not
- * clear, and the raw and false-discovery-rate counts for dependence and for bias.
+ * The forecast audit of many error series as fixed-width text for the terminal, within 80
+ * columns: per series in the core's ranked order (batchOrder.ts) the bias (mean error and its
+ * q-value across the series), the joint test of the lags from h on (its p and q-value) and the
+ * headline (core/batchHeadline.ts rules); a line closing the rows kept after the false-discovery
+ * step; the raw and false-discovery-rate counts for dependence and for bias; and, when asked
+ * (`reasons`), each shown series' finding with the lags below the horizon that h-step errors are
+ * expected to carry (shown, not counted).
  */
-import {
-  formatNumber,
-  rankedAuditItems,
-  type AuditBatch,
-  type AuditBatchItem,
-  type ForecastAudit,
-} from "../core";
-import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
-import { figureCell, numberCell, pCell } from "./tableCells";
+import { formatNumber, type AuditBatch, type AuditBatchItem, type ForecastAudit } from "../core";
+import { ALL_RANKED, rankedAuditItems, selectRanked, type RankedSelection } from "./batchOrder";
+import { headlineCell, rankedBodyLines } from "./rankedFooter";
+import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
+import { pCell } from "./tableCells";
+import { appendLines, wrapText } from "./textWrap";
 
-export function auditText(batch: AuditBatch, horizon: number, season: number | null): string {
+export interface AuditTextContext {
+  readonly horizon: number;
+  readonly season: number | null;
+  /** Which ranked rows to show (all when absent). */
+  readonly selection?: RankedSelection;
+  /** Print each shown series' reason under the table. */
+  readonly reasons?: boolean;
+  /** Lines on columns or ids of the input that were not read as series. */
+  readonly leftOut?: readonly string[];
+}
+
+const audited =
+  <T>(pick: (audit: ForecastAudit) => T) =>
+  (item: AuditBatchItem) =>
+    item.audit === null ? null : pick(item.audit);
+
+function columns(batch: AuditBatch): TextColumn<AuditBatchItem>[] {
+  const nWidth = batch.items.reduce(
+    (w, item) => Math.max(w, String(item.audit?.n ?? "").length),
+    4,
+  );
+  const n = audited((a) => String(a.n));
+  const mean = audited((a) => formatNumber(a.bias.mean, 3));
+  const dependenceP = audited((a) => pCell(a.levels.jointP.p, 7));
+  const width = lastColumnWidth(
+    batch.items.map((item) => headlineCell(item.headline)),
+    "headline",
+  );
+  return [
+    { header: "n", width: nWidth, cell: (item) => n(item) ?? "—" },
+    { header: "mean", width: 9, cell: (item) => mean(item) ?? "—" },
+    { header: "q-value", width: 7, cell: (item) => pCell(item.biasQValue, 7) },
+    { header: "p", width: 7, cell: (item) => dependenceP(item) ?? "—" },
+    { header: "q-value", width: 7, cell: (item) => pCell(item.dependenceQValue, 7) },
+    { header: " headline", width, left: true, cell: (item) => ` ${headlineCell(item.headline)}` },
+  ];
+}
+
+/** The lags below the horizon, as a sentence for the reasons. */
+function expectedLags(audit: ForecastAudit, horizon: number): string {
+  if (horizon === 1) return "";
+  const r = audit.rows.filter((row) => !row.counted).map((row) => formatNumber(row.correlation, 2));
+  return ` Lags 1–${horizon - 1} are expected to be non-zero for ${horizon}-step errors and are not counted; their autocorrelations: ${r.join(", ")}.`;
+}
+
+export function auditText(batch: AuditBatch, context: AuditTextContext): string {
   const { alpha } = batch;
-  const width = batch.items.reduce((w, item) => Math.max(w, item.label.length), 6);
-  const first = batch.items
-    .map((item) => item.audit)
-    .find((audit): audit is ForecastAudit => audit !== null);
+  const { horizon, season } = context;
+  const selection = context.selection ?? ALL_RANKED;
+  const all = rankedAuditItems(batch);
+  const shown = selectRanked(all, selection);
+  const audits = batch.items.flatMap((item) => (item.audit === null ? [] : [item.audit]));
   const lines: string[] = [];
-  const expectedLags =
+  const lagsNote =
     horizon === 1
       ? "one-step errors: every lag counts"
-      : `${horizon}-step errors: lags 1–${horizon - 1} are expected to be non-zero and are shown, not counted`;
-  lines.push(
-    `forecast audit: horizon ${horizon} (${expectedLags}); Bartlett bands; alpha ${alpha}${season === null ? "" : `; season ${season}`}`,
+      : `${horizon}-step errors: lags 1–${horizon - 1} are expected to be non-zero, so they are not counted (--reasons lists them)`;
+  appendLines(
+    lines,
+    wrapText(
+      `forecast audit: ${batch.items.length} series, horizon ${horizon}; ${lagsNote}; Bartlett bands; alpha ${alpha}${season === null ? "" : `; season ${season}`}. Ranked: kept findings first (by the smaller kept q-value), then watch, clear, short; within each by the dependence q-value, ties by p, then file order.`,
+    ),
   );
-  if (first !== undefined) {
-    const audits = batch.items.flatMap((item) => (item.audit === null ? [] : [item.audit]));
+  if (audits.length > 0) {
     const spread = (pick: (audit: ForecastAudit) => number) => {
       let lo = Infinity;
       let hi = -Infinity;
@@ -41,78 +88,56 @@ export function auditText(batch: AuditBatch, horizon: number, season: number | n
       return lo === hi ? String(lo) : `${lo}–${hi}`;
     };
     const test = horizon === 1 ? "Ljung–Box" : `Ljung–Box adjusted for the ${horizon}-step horizon`;
-    lines.push(
-      `dependence: joint test of lags ${horizon} to ${spread((a) => a.maxLag)} (${test}); bias: corrected t with the long-run variance over lags 0–${horizon - 1}, against t with n − 1 df; dependence p by Monte Carlo under the fitted MA(${horizon - 1}) null`,
+    appendLines(
+      lines,
+      wrapText(
+        `bias: mean error, corrected t with the long-run variance over lags 0–${horizon - 1}, against t with n − 1 df. dependence: joint test of lags ${horizon} to ${spread((a) => a.maxLag)} (${test}), p by Monte Carlo under the fitted MA(${horizon - 1}) null.`,
+      ),
     );
   }
   lines.push("");
-  const expectedHeader =
-    horizon === 1 ? "" : `  r(1..${horizon - 1})`.padEnd(8 + 6 * (horizon - 1));
-  lines.push(
-    `${"series".padEnd(width)}      n        mean       se       t  p(bias)  q(bias)${expectedHeader}  lags        Q  df   p(dep)   q(dep)  verdict`,
+  const cols = columns(batch);
+  const nWidth = cols[0]?.width ?? 4;
+  const analysed = audits.length;
+  appendLines(
+    lines,
+    rankedBodyLines({
+      alpha,
+      all,
+      shown,
+      selection,
+      table: rankedTableText(
+        shown,
+        (item) => item.label,
+        cols,
+        (start) =>
+          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("bias", 17)} ${groupLabel("dependence", 15)}`,
+      ),
+      headerLines: 2,
+      counts: [
+        `dependence: raw p < ${alpha} flags ${batch.flaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.flaggedFdr} (about ${formatNumber(analysed * alpha, 2)} raw flags expected by chance if every forecast were sound).`,
+        `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.biasFlaggedFdr} (marked "biased").`,
+        `Only kept items are called structure or biased; a finding the false-discovery step does not keep is at most watch.`,
+      ],
+      reasons: shown.map(({ rank, item }) => ({
+        rank,
+        label: item.label,
+        headline: item.headline,
+        reason:
+          item.audit === null || item.headline === null
+            ? item.problem
+            : `${item.headline.finding}${expectedLags(item.audit, horizon)}`,
+      })),
+      showReasons: context.reasons === true,
+      // Beyond one step every audited row has lags to show: the expected ones below the horizon.
+      includeClear: horizon > 1,
+      notAnalysed: [
+        ...all
+          .filter((r) => r.item.audit === null)
+          .map((r) => `not audited: ${r.item.label}: ${r.item.problem}`),
+        ...(context.leftOut ?? []),
+      ],
+    }),
   );
-  const ranked = rankedAuditItems(batch);
-  for (const item of ranked) lines.push(row(item, width, horizon));
-  lines.push("");
-  const analysed = batch.items.filter((item) => item.audit !== null).length;
-  lines.push(
-    `dependence: raw p < ${alpha} flags ${batch.flaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.flaggedFdr} (about ${formatNumber(analysed * alpha, 2)} raw flags expected by chance if every forecast were sound).`,
-  );
-  lines.push(
-    `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.biasFlaggedFdr}.`,
-  );
-  lines.push(
-    `Only kept items are called structure or biased; a finding the false-discovery step does not keep is at most watch. Ranked: kept findings first, then watch, clear.`,
-  );
-  const notes = ranked.filter(
-    (item) => item.headline === null || item.headline.word !== "clear" || item.headline.biased,
-  );
-  if (notes.length > 0) {
-    lines.push("");
-    for (const item of notes) {
-      const { headline } = item;
-      if (headline === null) {
-        lines.push(`${item.label}: not audited: ${item.problem}`);
-      } else {
-        lines.push(
-          `${item.label}: ${BADGES[headline.word].shape} ${headline.title}: ${headline.finding}`,
-        );
-      }
-    }
-  }
-  lines.push("");
-  lines.push(SCREENING_CAUTION);
   return lines.map((line) => line.trimEnd()).join("\n");
-}
-
-function row(item: AuditBatchItem, width: number, horizon: number): string {
-  const audit = item.audit;
-  const label = item.label.padEnd(width);
-  if (audit === null) return `${label}  — not audited (see below)`;
-  const { bias, dependenceTest } = audit;
-  const expected =
-    horizon === 1
-      ? ""
-      : ` ${audit.rows
-          .filter((r) => !r.counted)
-          .map((r) => numberCell(r.correlation, 2, 5))
-          .join(" ")}`.padEnd(8 + 6 * (horizon - 1));
-  const headline = item.headline;
-  const badge = headline === null ? "" : `${BADGES[headline.word].shape} ${headline.title}`;
-  return [
-    label,
-    String(audit.n).padStart(6),
-    figureCell(bias.mean, 4, 11),
-    figureCell(bias.se, 3, 8),
-    numberCell(bias.tCorrected, 2, 7),
-    pCell(bias.p, 8),
-    pCell(item.biasQValue, 8),
-    expected,
-    `${dependenceTest.firstLag}–${dependenceTest.maxLag}`.padStart(5),
-    numberCell(dependenceTest.q, 2, 8),
-    String(dependenceTest.df).padStart(3),
-    pCell(audit.levels.jointP.p, 8),
-    pCell(item.dependenceQValue, 8),
-    ` ${badge}`,
-  ].join(" ");
 }

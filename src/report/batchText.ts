@@ -1,72 +1,109 @@
 /**
- * The batch check as a fixed-width text table for the terminal: one row per series, sorted by
- * the core's ranking (kept findings first, then watch, clear, short), then the count the raw p-values flag against the
- * count the false-discovery rate keeps, and the reasons of series that could not be analysed.
+ * The batch check as fixed-width text for the terminal, within 80 columns: one row per series in
+ * the core's ranked order (batchOrder.ts: the ones to look at first on top) with its lag-structure
+ * p and q-value, its bias q-value and its headline (core/batchHeadline.ts), a line closing the
+ * rows kept after the false-discovery step, the count the raw p-values flag against the counts
+ * the false-discovery steps keep, the reasons of series that could not be analysed, and each
+ * shown series' finding when asked (`reasons`). The joint test's statistic is in --json and
+ * --csv (`statistic`).
  */
 import {
   formatLevel,
   formatNumber,
-  rankedRows,
   TEST_NAMES,
   type BatchCheck,
+  type BatchRow,
   type TestKind,
 } from "../core";
-import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
-import { pCell, numberCell } from "./tableCells";
+import { ALL_RANKED, rankedBatchRows, selectRanked, type RankedSelection } from "./batchOrder";
+import { headlineCell, rankedBodyLines } from "./rankedFooter";
+import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
+import { pCell } from "./tableCells";
+import { appendLines, wrapText } from "./textWrap";
 
 export interface BatchTextContext {
   readonly maxLag: number | null;
   readonly season: number | null;
   readonly testKind: TestKind;
+  /** Which ranked rows to show (all when absent). */
+  readonly selection?: RankedSelection;
+  /** Print each shown series' reason under the table. */
+  readonly reasons?: boolean;
+  /** Lines on columns or ids of the input that were not read as series. */
+  readonly leftOut?: readonly string[];
+}
+
+function columns(batch: BatchCheck): TextColumn<BatchRow>[] {
+  const nWidth = batch.rows.reduce((w, row) => Math.max(w, String(row.n).length), 4);
+  const width = lastColumnWidth(
+    batch.rows.map((row) => headlineCell(row.headline)),
+    "headline",
+  );
+  return [
+    { header: "n", width: nWidth, cell: (row) => String(row.n) },
+    { header: "p", width: 8, cell: (row) => pCell(row.p, 8) },
+    { header: "q-value", width: 8, cell: (row) => pCell(row.qValue, 8) },
+    { header: "q-value", width: 8, cell: (row) => pCell(row.biasQValue, 8) },
+    {
+      header: " headline",
+      width,
+      left: true,
+      cell: (row) => ` ${headlineCell(row.headline)}`,
+    },
+  ];
 }
 
 export function batchText(batch: BatchCheck, context: BatchTextContext): string {
   const { alpha } = batch;
-  const width = batch.rows.reduce((w, row) => Math.max(w, row.label.length), 6);
-  const order = rankedRows(batch);
+  const selection = context.selection ?? ALL_RANKED;
+  const all = rankedBatchRows(batch);
+  const shown = selectRanked(all, selection);
   const lines: string[] = [];
-  lines.push(
-    `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${context.maxLag === null ? "the default lags" : `${context.maxLag} lags`}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}; ranked: kept findings first`,
+  const lags = context.maxLag === null ? "the default lags" : `${context.maxLag} lags`;
+  appendLines(
+    lines,
+    wrapText(
+      `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${lags}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}. Lag structure: p of the joint test and the largest lag as one test, and its q-value across the series; bias: the q-value of the mean's test. Ranked: kept findings first, then watch, clear, short; within each by q-value, ties by p, then file order.`,
+    ),
   );
-  lines.push("");
-  lines.push(
-    `${"series".padEnd(width)}      n         Q   df         p   q-value  headline             flagged`,
-  );
-  for (const row of order) {
-    const { headline } = row;
-    const badge =
-      headline === null ? "— not analysed" : `${BADGES[headline.word].shape} ${headline.title}`;
-    const flags = [row.p < alpha ? "raw" : "", row.kept ? "kept" : ""]
-      .filter((f) => f !== "")
-      .join(" + ");
-    lines.push(
-      [
-        row.label.padEnd(width),
-        String(row.n).padStart(6),
-        numberCell(row.q, 2, 9),
-        String(row.df).padStart(4),
-        pCell(row.p, 9),
-        pCell(row.qValue, 9),
-        ` ${badge.padEnd(20)}`,
-        flags,
-      ].join(" "),
-    );
-  }
   lines.push("");
   const expected = formatNumber(batch.analysed * alpha, 2);
-  lines.push(
-    `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
+  const nWidth = columns(batch)[0]?.width ?? 4;
+  appendLines(
+    lines,
+    rankedBodyLines({
+      alpha,
+      all,
+      shown,
+      selection,
+      table: rankedTableText(
+        shown,
+        (row) => row.label,
+        columns(batch),
+        (start) =>
+          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("lag structure", 17)} ${groupLabel("bias", 8)}`,
+      ),
+      headerLines: 2,
+      counts: [
+        `raw p < ${alpha}: ${batch.flaggedRaw} of ${batch.analysed} series flagged; about ${expected} would be by chance if every series were noise.`,
+        `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept (Benjamini–Hochberg q-value ≤ ${alpha}); among the kept, false flags are held to about ${formatLevel(alpha)} on average. Only kept series are called structure; a finding the step does not keep is at most watch.`,
+        `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw}; the false-discovery step on bias keeps ${batch.biasFlaggedFdr} (marked "biased").`,
+      ],
+      reasons: shown.map(({ rank, item }) => ({
+        rank,
+        label: item.label,
+        headline: item.headline,
+        reason: item.headline?.finding ?? item.reason,
+      })),
+      showReasons: context.reasons === true,
+      includeClear: false,
+      notAnalysed: [
+        ...all
+          .filter((r) => r.item.verdict === null)
+          .map((r) => `not analysed: ${r.item.label}: ${r.item.reason}`),
+        ...(context.leftOut ?? []),
+      ],
+    }),
   );
-  lines.push(
-    `false-discovery rate ${alpha}: ${batch.flaggedFdr} kept (Benjamini–Hochberg q ≤ ${alpha}); among the kept, false flags are held to about ${formatLevel(alpha)} on average. Only kept series are called structure; a finding the step does not keep is at most watch.`,
-  );
-  lines.push(
-    `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw}; the false-discovery step on bias keeps ${batch.biasFlaggedFdr} (marked "biased").`,
-  );
-  for (const row of order) {
-    if (row.verdict === null) lines.push(`not analysed: ${row.label}: ${row.reason}`);
-  }
-  lines.push("");
-  lines.push(SCREENING_CAUTION);
   return lines.map((line) => line.trimEnd()).join("\n");
 }

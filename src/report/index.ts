@@ -17,3 +17,4 @@ export * from "./portableTypes";
 export * from "./portablePlan";
 export * from "./portableBatch";
 export * from "./portableChartXml";
+export * from "./rankedList";

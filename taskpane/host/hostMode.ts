@@ -4,7 +4,7 @@
  * through the core's intake: one column or row is one series, a block is one series per column.
  */
 import { isEcholotError, seriesFromValues, type Series } from "../../src/core";
-import { cellAddress, liveReportPlan, snapshotReportPlan } from "../../src/report";
+import { cellAddress, liveReportPlan, rankedListGrid, snapshotReportPlan } from "../../src/report";
 import type { PaneController } from "../pane/controller";
 import { showMessage, type PaneElements } from "../pane/view";
 import { absoluteReference, columnReferences, parseAreas, splitAddress } from "./address";
@@ -17,6 +17,7 @@ import {
   type ExcelRun,
 } from "./excel";
 import { installPortableAction } from "./placePortable";
+import { placeRankedList } from "./placeRankedList";
 import { placeReport } from "./placeReport";
 import type { ErrorCell, RangeRead } from "./readRange";
 import { HostSession } from "./session";
@@ -260,6 +261,10 @@ export async function startHost(
   el.placeLive.addEventListener("click", () => void place("live"));
   el.placeSnapshot.addEventListener("click", () => void place("snapshot"));
   installPortableAction(el, pane, run);
+  pane.exportRanked = async (list) => {
+    const sheet = await placeRankedList(run, rankedListGrid(list));
+    return `Ranked list placed on the new sheet “${sheet}” (open its tab to see it): ${list.items.length} items, most telling first.`;
+  };
 
   await listenWhileVisible(session, env.addin, (error) => pane.showDataProblem(messageOf(error)));
 }

@@ -12,7 +12,22 @@ export interface SettingsText {
   readonly alpha: string;
   readonly bandKind: string;
   readonly testKind: string;
+  /** "noise" (the noise check) or "audit" (the forecast audit). */
+  readonly check: string;
+  readonly horizon: string;
 }
+
+/** The form's fields by the option name the core's messages start with. */
+export const SETTING_NAMES = [
+  "maxLag",
+  "season",
+  "fittedParams",
+  "alpha",
+  "bandKind",
+  "testKind",
+  "horizon",
+] as const;
+export type SettingName = (typeof SETTING_NAMES)[number];
 
 function numberSetting(name: string, text: string): number | null {
   const trimmed = text.trim();
@@ -33,6 +48,12 @@ export function lagOptionsFrom(text: SettingsText): LagOptions {
   };
 }
 
+/** The forecast audit's horizon when the form asks for the audit (default 1), else null. */
+export function auditHorizonFrom(text: SettingsText): number | null {
+  if (text.check !== "audit") return null;
+  return numberSetting("horizon", text.horizon) ?? 1;
+}
+
 /** The form's current text. */
 export function readSettingsForm(form: HTMLFormElement): SettingsText {
   const field = (name: string) => {
@@ -48,6 +69,8 @@ export function readSettingsForm(form: HTMLFormElement): SettingsText {
     alpha: field("alpha"),
     bandKind: field("bandKind"),
     testKind: field("testKind"),
+    check: field("check") || "noise",
+    horizon: field("horizon"),
   };
 }
 

@@ -34,10 +34,17 @@ export interface PaneElements {
   readonly ribbon: HTMLElement;
   readonly explanation: HTMLElement;
   readonly batchPanel: HTMLElement;
+  readonly settingsPanel: HTMLElement;
+  readonly exportRanked: HTMLButtonElement;
+  readonly exportStatus: HTMLElement;
+  readonly verdictStatus: HTMLElement;
+  readonly auditLine: HTMLElement;
+  readonly readingNote: HTMLElement;
   readonly batch: HTMLElement;
   readonly columnPick: HTMLSelectElement;
   readonly settings: HTMLFormElement;
   readonly settingsProblem: HTMLElement;
+  readonly horizon: HTMLInputElement;
   readonly placeLive: HTMLButtonElement;
   readonly placeSnapshot: HTMLButtonElement;
   readonly copySummary: HTMLButtonElement;
@@ -72,10 +79,17 @@ export function findElements(doc: Document): PaneElements {
     ribbon: byId(doc, "ribbon"),
     explanation: byId(doc, "explanation"),
     batchPanel: byId(doc, "batch-panel"),
+    settingsPanel: byId(doc, "settings-panel"),
+    exportRanked: byId(doc, "export-ranked"),
+    exportStatus: byId(doc, "export-status"),
+    verdictStatus: byId(doc, "verdict-status"),
+    auditLine: byId(doc, "audit-line"),
+    readingNote: byId(doc, "reading-note"),
     batch: byId(doc, "batch"),
     columnPick: byId(doc, "column-pick"),
     settings: byId(doc, "settings"),
     settingsProblem: byId(doc, "settings-problem"),
+    horizon: byId(doc, "set-horizon"),
     placeLive: byId(doc, "place-live"),
     placeSnapshot: byId(doc, "place-snapshot"),
     copySummary: byId(doc, "copy-summary"),

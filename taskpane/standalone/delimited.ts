@@ -21,6 +21,7 @@ import {
   seriesFromValues,
   TableBuilder,
   type ColumnLook,
+  type Dialect,
   type OptionWords,
   type Series,
 } from "../../src/core";
@@ -43,10 +44,10 @@ const LOOK_WORDS: Readonly<Record<ColumnLook, string>> = {
   counter: "an id or time column",
 };
 
-function records(text: string, origin: string): { rows: string[][]; decimal: "." | "," } {
+function records(text: string, origin: string): { rows: string[][]; dialect: Dialect } {
   const dialect = detectDialect(text, true);
   try {
-    return { rows: parse(text, csvParseOptions(dialect)) as string[][], decimal: dialect.decimal };
+    return { rows: parse(text, csvParseOptions(dialect)) as string[][], dialect };
   } catch (error) {
     invalid(
       `${origin} is not well-formed ${delimiterName(dialect.delimiter)}-separated text: ${(error as Error).message}`,
@@ -58,14 +59,48 @@ export interface TextSeries {
   readonly series: Series[];
   /** Columns left aside because they are not series, each with a word on why: "date (dates)". */
   readonly skipped: string[];
+  /** How the text was read, for a note beside the result: delimiter, decimal mark, an example. */
+  readonly reading: string;
+}
+
+/** "-0,272644" (a cell as written) and how it was read, for the note. */
+function firstNumberCell(rows: readonly string[][], decimal: "." | ","): string {
+  const reader = cellReader({ decimal });
+  for (const row of rows) {
+    for (const cell of row) {
+      const value = reader.read(cell);
+      if (value !== undefined && Number.isFinite(value) && /\d[.,]\d/.test(cell)) {
+        return `: "${cell.trim()}" is ${value}`;
+      }
+    }
+  }
+  return "";
+}
+
+/** How the text was read: "one value a line, decimal comma: "-0,272644" is -0.272644". */
+function readingNote(
+  rows: readonly string[][],
+  dialect: Dialect,
+  columns: number,
+  asRow: boolean,
+): string {
+  const layout = asRow
+    ? "one row of values"
+    : columns === 1
+      ? "one value a line"
+      : `${delimiterName(dialect.delimiter)}-separated columns`;
+  const mark = dialect.decimal === "," ? "decimal comma" : "decimal point";
+  return `Read as ${layout}, ${mark}${firstNumberCell(rows, dialect.decimal)}.`;
 }
 
 /** One line of several values separated by spaces or a delimiter: one series as a row. */
 function rowSeries(
   cells: readonly string[],
-  decimal: "." | ",",
+  dialect: Dialect,
   origin: string,
+  rows: readonly string[][],
 ): TextSeries | undefined {
+  const decimal = dialect.decimal;
   const reader = cellReader({ decimal });
   if (cells.length < 2 || !cells.every((c) => reader.read(c) !== undefined)) return undefined;
   const values = cells.map((c) => {
@@ -75,18 +110,20 @@ function rowSeries(
   return {
     series: [seriesFromValues(values, { describePosition: (i) => `value ${i + 1} of ${origin}` })],
     skipped: [],
+    reading: readingNote(rows, dialect, 1, true),
   };
 }
 
 /** Reads every series column of the text; `origin` names the text in messages. */
 export function seriesFromText(text: string, origin: string): TextSeries {
   if (text.trim() === "") invalid(`${origin} is empty: paste or open some numbers`);
-  const { rows, decimal } = records(text, origin);
+  const { rows, dialect } = records(text, origin);
+  const decimal = dialect.decimal;
   const nonEmpty = rows.filter((r) => r.some((c) => c.trim() !== ""));
   if (nonEmpty.length === 1) {
     const only = nonEmpty[0] as string[];
     const cells = only.length === 1 ? (only[0] as string).trim().split(/\s+/) : only;
-    const row = rowSeries(cells, decimal, origin);
+    const row = rowSeries(cells, dialect, origin, [cells]);
     if (row !== undefined) return row;
   }
 
@@ -109,5 +146,9 @@ export function seriesFromText(text: string, origin: string): TextSeries {
   }
   // The pane's line under the label is short: each column left aside with a word on why.
   const skipped = leftOut.map((l) => `${l.column.name} (${LOOK_WORDS[l.column.look]})`);
-  return { series: columns.map((column) => columnSeries(table, column)), skipped };
+  return {
+    series: columns.map((column) => columnSeries(table, column)),
+    skipped,
+    reading: readingNote(rows, dialect, table.columns.length, false),
+  };
 }

@@ -15,7 +15,8 @@ function byId<T extends HTMLElement>(id: string): T {
 }
 
 export function startStandalone(el: PaneElements, pane: PaneController): void {
-  const panel = byId<HTMLElement>("data-panel");
+  const panel = byId<HTMLDetailsElement>("data-panel");
+  const dataSummary = byId<HTMLElement>("data-summary");
   const pasteBox = byId<HTMLTextAreaElement>("paste-box");
   const pasteRead = byId<HTMLButtonElement>("paste-read");
   const filePick = byId<HTMLInputElement>("file-pick");
@@ -29,9 +30,13 @@ export function startStandalone(el: PaneElements, pane: PaneController): void {
 
   const load = (text: string, origin: string, suggested?: LagOptions) => {
     try {
-      const { series, skipped } = seriesFromText(text, origin);
+      const { series, skipped, reading } = seriesFromText(text, origin);
       const aside = skipped.length > 0 ? ` (left aside: ${skipped.join("; ")})` : "";
-      pane.show({ series, source: `${origin}${aside}` }, suggested);
+      pane.show({ series, source: `${origin}${aside}`, reading }, suggested);
+      // The data are in: the panel folds away to one line, and opens again to change them.
+      const count = series.length === 1 ? "1 series" : `${series.length} items`;
+      dataSummary.textContent = `${origin}, ${count} (open to change)`;
+      panel.open = false;
     } catch (error) {
       if (!isEcholotError(error)) throw error;
       pane.showDataProblem(error.message.charAt(0).toUpperCase() + error.message.slice(1));

@@ -14,6 +14,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   builtPane,
   launchChromium,
+  wordsInRankedOrder,
+  openDataPanel,
   recordViolations,
   violations,
   ROOT,
@@ -69,6 +71,7 @@ describe("the built pane in a browser, standalone", () => {
   });
 
   async function paste(text: string): Promise<void> {
+    await openDataPanel(page);
     await page.fill("#paste-box", text);
     await page.click("#paste-read");
     await page.locator("#result").waitFor({ state: "visible" });
@@ -92,7 +95,7 @@ describe("the built pane in a browser, standalone", () => {
     await page.screenshot({ path: join(OUTPUT, "pane-series-f.png"), fullPage: true });
   });
 
-  it("copies the summary: the verdict, its reason and the caution", async () => {
+  it("copies the summary: the headline, every finding and the caution", async () => {
     await context.grantPermissions(["clipboard-read", "clipboard-write"], {
       origin: server.origin,
     });
@@ -101,10 +104,12 @@ describe("the built pane in a browser, standalone", () => {
     const copied = await page.evaluate(() => navigator.clipboard.readText());
     const lines = copied.split("\n");
     expect(lines[0]).toBe(
-      "yield (n = 70; 10 lags, alpha 0.05, noise bands, Ljung–Box): ■ structure",
+      "yield (n = 70; 10 lags, alpha 0.05, noise bands, Ljung–Box): ■ structure, biased",
     );
+    // Every finding that fired: the lag structure, then the bias (Series F is raw yields, mean 51).
     expect(lines[1]).toContain("Ljung–Box over 10 lags rejects white noise");
-    expect(lines[2]).toContain("A verdict is a statistical screen, not a decision");
+    expect(lines[2]).toMatch(/^Biased: the mean is 51\.13, not zero/);
+    expect(lines.at(-1)).toContain("A verdict is a statistical screen, not a decision");
   });
 
   it("repeats the chart as a text table and an aria description", async () => {
@@ -144,15 +149,16 @@ describe("the built pane in a browser, standalone", () => {
     expect(dialogs).toEqual([]);
   });
 
-  it("opens a demo scenario with its settings and a batch view sorted by q-value", async () => {
+  it("opens a demo scenario with its settings and a batch view in ranked order", async () => {
+    await openDataPanel(page);
     await page.selectOption("#demo-pick", "ternpoint");
     await page.click("#demo-open");
-    await expect.poll(() => page.locator("#batch table tbody tr").count()).toBe(24);
+    await expect.poll(() => page.locator("#batch table tbody tr:not(.cutoff)").count()).toBe(24);
     expect(await page.inputValue("#set-season")).toBe("13");
-    const q = await page.locator("#batch table tbody tr td:nth-child(4)").allTextContents();
-    const numbers = q.map((t) => (t === "< 1e-300" ? 0 : Number(t)));
-    expect(numbers.every((v, i) => i === 0 || v >= (numbers[i - 1] as number))).toBe(true);
-    await page.selectOption("#column-pick", { label: "Copper Kettle" });
+    // The order agrees with the words: kept rows first, then watch, then clear, then short.
+    expect(await wordsInRankedOrder(page)).toBe(true);
+    const copper = page.locator("#column-pick option", { hasText: "Copper Kettle" });
+    await page.selectOption("#column-pick", (await copper.getAttribute("value")) ?? "");
     await expect.poll(() => page.textContent("#series-label")).toBe("Copper Kettle");
     await page.screenshot({ path: join(OUTPUT, "pane-demo-ternpoint.png"), fullPage: true });
   });
@@ -167,6 +173,7 @@ describe("the built pane in a browser, standalone", () => {
   });
 
   it("says what to fix when pasted text holds a word among the numbers", async () => {
+    await openDataPanel(page);
     await page.fill("#paste-box", "errors\n1.5\n2\nabc\n4\n5");
     await page.click("#paste-read");
     await expect.poll(() => page.isVisible("#problem")).toBe(true);

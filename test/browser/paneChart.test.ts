@@ -47,9 +47,12 @@ describe("the pane's chart and ribbon, on the analyst's clustered residuals", ()
   });
 
   it("names the band kind and the joint test in the chart's caption, and follows the settings", async () => {
+    // Asked for noise bands, but Engle's LM fires on these residuals: the headline takes the
+    // robust reading (core/headline.ts), and the chart draws and names that reading.
+    expect(await page.textContent("#verdict-badge")).toContain("(robust reading)");
     expect(await captions("#chart")).toEqual([
-      "Autocorrelation, noise bands (se 1/√n)",
-      "Joint test Ljung–Box over lags 1–10:",
+      "Autocorrelation, robust bands (volatility)",
+      "Joint test robust Q* over lags 1–10:",
       expect.stringMatching(/^p [=<] \S+ (by|from) /),
     ]);
     await page.screenshot({ path: join(OUTPUT, "larkvale-noise-350.png"), fullPage: true });

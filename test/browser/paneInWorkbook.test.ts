@@ -187,7 +187,20 @@ describe("the built pane in a workbook (simulated host)", () => {
   it("offers the batch view for a selected block", async () => {
     await page.evaluate(() => window.echolotHost.select("Forecast errors", "A1:C71"));
     await expect.poll(() => page.isVisible("#batch-panel")).toBe(true);
-    expect(await page.locator("#batch table tbody tr").count()).toBe(2);
+    expect(await page.locator("#batch table tbody tr:not(.cutoff)").count()).toBe(2);
+    // Inside a workbook the ranked list goes on a new sheet, as values, in the table's order.
+    const labels = await page.locator("#batch .item-button").allTextContents();
+    await page.click("#export-ranked");
+    await expect
+      .poll(() => page.textContent("#export-status"))
+      .toContain("Ranked list placed on the new sheet “Echolot ranked”");
+    const placed = await page.evaluate(() =>
+      window.echolotHost.sheet("Echolot ranked").grid("A1:I3"),
+    );
+    expect(placed.values[0]?.slice(0, 3)).toEqual(["rank", "item", "n"]);
+    expect(placed.values.slice(1).map((row) => row[1])).toEqual(labels);
+    expect(placed.values[1]?.[0]).toBe(1);
+    expect(await page.textContent("#series-label")).toBe(labels[0]);
     expect(problems).toEqual([]);
   });
 });

@@ -128,3 +128,23 @@ export function violations(page: Page): Promise<Violation[]> {
     () => (window as unknown as { echolotViolations: Violation[] }).echolotViolations,
   );
 }
+
+/** Unfolds the standalone page's data panel (it folds away once data are in), as a user would. */
+export async function openDataPanel(page: Page): Promise<void> {
+  const open = await page.evaluate(
+    () => (document.getElementById("data-panel") as HTMLDetailsElement).open,
+  );
+  if (!open) await page.click("#data-panel > summary");
+}
+
+/**
+ * Whether the ranked table's rows below the cut-off run watch, then clear, then short, then not
+ * analysed: the order agrees with the words.
+ */
+export async function wordsInRankedOrder(page: Page): Promise<boolean> {
+  const words = await page
+    .locator("#batch tbody tr:not(.cutoff):not(.kept) td.verdict")
+    .evaluateAll((tds) => tds.map((td) => (td as HTMLElement).dataset.word ?? ""));
+  const groups = words.map((w) => ["watch", "clear", "short", ""].indexOf(w));
+  return groups.every((g, i) => g >= 0 && (i === 0 || g >= (groups[i - 1] as number)));
+}

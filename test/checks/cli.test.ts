@@ -14,9 +14,10 @@ const UNDER_REACTS = ["Copper Kettle", "Birch Parlour", "Greywell", "Wickerwork"
 const BIASED = ["Lantern Hill", "Kestrel Row"];
 
 interface SeriesEntry {
+  readonly position: number;
   readonly label: string;
   readonly n: number;
-  readonly q: number;
+  readonly statistic: number;
   readonly df: number;
   readonly p: number;
   readonly qValue: number;
@@ -75,9 +76,11 @@ describe("echolot batch", () => {
     const doc = json<Document>(["batch", DEMO, "--json"]);
     expect(doc.series).toHaveLength(24);
     expect(Object.keys(doc.series[0] ?? {})).toEqual(
-      expect.arrayContaining(["label", "n", "q", "df", "p", "qValue", "verdict"]),
+      expect.arrayContaining(["rank", "label", "n", "statistic", "df", "p", "qValue", "verdict"]),
     );
-    expect(doc.series[0]?.label).toBe("Harbour Dawn");
+    expect(doc.series.find((s) => s.position === 1)?.label).toBe("Harbour Dawn");
+    // Ranked (core/batchRanking.ts): the kept findings first, biased or under-reacting blends.
+    expect([...UNDER_REACTS, ...BIASED]).toContain(doc.series[0]?.label);
     expect(doc.flaggedRaw).toBe(doc.series.filter((s) => s.p < 0.05).length);
     expect(doc.flaggedFdr).toBe(doc.series.filter((s) => s.qValue <= 0.05).length);
   });
@@ -88,14 +91,16 @@ describe("echolot batch", () => {
     expect(kept.sort()).toEqual([...UNDER_REACTS].sort());
   });
 
-  it("batch prints a table sorted by q-value with the summary and the caution", () => {
+  it("batch prints a ranked table, kept findings first, with the summary and the caution", () => {
     const result = runCli(["batch", DEMO]);
     expect(result.status).toBe(0);
-    const rows = result.stdout.split("\n").filter((l) => /^\S.*\s(●|▲|■|◌) /.test(l));
+    const rows = result.stdout.split("\n").filter((l) => /^\s*\d+ .*\s(●|▲|■|◌) /.test(l));
     expect(rows).toHaveLength(24);
-    expect(UNDER_REACTS).toContain(rows[0]?.split(/\s{2,}/)[0]);
+    // Kept findings rank first: the two biased blends (kept bias), then the under-reacting ones.
+    const labels = rows.map((l) => /^\s*\d+ (.+?)\s{2,}/.exec(l)?.[1]);
+    expect(labels.slice(0, 6).sort()).toEqual([...BIASED, ...UNDER_REACTS].sort());
     expect(result.stdout).toMatch(/raw p < 0.05: \d+ of 24 series flagged/);
-    expect(result.stdout).toMatch(/false-discovery rate 0.05: 4 kept flagged/);
+    expect(result.stdout).toMatch(/false-discovery rate 0.05: 4 kept \(Benjamini–Hochberg/);
     expect(result.stdout).toMatch(/statistical screen, not a decision/);
   });
 
@@ -130,10 +135,15 @@ describe("echolot audit", () => {
   it("audit --horizon 3 shows lags 1–2 as expected and tests from lag 3", () => {
     const result = runCli(["audit", SERIES_F, "--horizon", "3"]);
     expect(result.status).toBe(0);
-    expect(result.stdout).toMatch(
-      /lags 1–2 are expected to be non-zero and are shown, not counted/,
+    expect(result.stdout.replace(/\s+/g, " ")).toMatch(
+      /lags 1–2 are expected to be non-zero, so they are not counted/,
     );
-    expect(result.stdout).toMatch(/yield\s+70 .* 3–12 /);
+    expect(result.stdout).toMatch(/joint test of lags 3 to 12 /);
+    expect(result.stdout).toMatch(/^\s+1 yield\s+70 /m);
+    const reasons = runCli(["audit", SERIES_F, "--horizon", "3", "--reasons"]);
+    expect(reasons.stdout.replace(/\s+/g, " ")).toMatch(
+      /Lags 1–2 are expected to be non-zero for 3-step errors and are not counted; their autocorrelations: -?0\.\d+, -?0\.\d+\./,
+    );
     const doc = json<{ series: { firstLag: number; lags: { counted: boolean }[] }[] }>([
       "audit",
       SERIES_F,
@@ -149,7 +159,10 @@ describe("echolot audit", () => {
     [["audit", SERIES_F], /needs --horizon H/],
     [["audit", SERIES_F, "--horizon", "0"], /--horizon must be a whole number from 1 to 69/],
     [["audit", SERIES_F, "--horizon", "two"], /--horizon must be a number/],
-    [["audit", SERIES_F, "--horizon", "1", "--bands", "robust"], /audit does not take --bands/],
+    [
+      ["audit", SERIES_F, "--horizon", "1", "--bands", "robust"],
+      /unknown option --bands for audit; audit takes: --horizon/,
+    ],
     [["audit", "--horizon", "1"], /audit needs a CSV file/],
   ])("echolot %j is refused with exit 2 and a message", (args, message) => {
     const result = runCli(args);

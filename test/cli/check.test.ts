@@ -147,7 +147,7 @@ describe("echolot check FILE (text)", () => {
 });
 
 describe("echolot demo", () => {
-  it("prints a verdict for every series of both scenarios", () => {
+  it("prints a headline for every series of both scenarios, the blends ranked as a batch", () => {
     const result = runCli(["demo"]);
     expect(result.status).toBe(0);
     const header = readFileSync(
@@ -160,6 +160,11 @@ describe("echolot demo", () => {
     expect(header).toHaveLength(24);
     for (const blend of header) expect(result.stdout).toContain(blend);
     expect(result.stdout).toMatch(/Larkvale/);
-    expect(result.stdout.match(/(clear|watch|structure|short) +p = /g)?.length).toBe(24 + 3);
+    // 24 ranked blends and the fund's three readings, each with its badge and p.
+    expect(
+      result.stdout.match(/^ {2}\S.*(●|▲|■|◌) (clear|watch|structure|short).* p = /gm)?.length,
+    ).toBe(24 + 3);
+    expect(result.stdout).toMatch(/headline: ● clear \(robust reading\)/);
+    expect(result.stdout).toMatch(/Lantern Hill +■ structure, biased/);
   });
 });

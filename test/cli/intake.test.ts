@@ -203,7 +203,7 @@ describe("echolot: strict options", () => {
     ({ command, rest, refusedOption }) => {
       refused(
         [command, plain, ...rest],
-        new RegExp(`${command} does not take ${refusedOption}; it takes`),
+        new RegExp(`unknown option ${refusedOption} for ${command}; ${command} takes: --`),
       );
     },
   );
@@ -301,7 +301,7 @@ describe("echolot batch and audit in long format", () => {
   it("groups by id, orders by time, and reads missing weeks as gaps, as a column with empty lines would be", () => {
     const doc = JSON.parse(ok(runCli(["batch", file, ...LONG, "--json"]), "batch long")) as {
       source: string;
-      series: { label: string; n: number; q: number }[];
+      series: { label: string; n: number; statistic: number }[];
     };
     expect(doc.source).toMatch(
       /long format, 58 rows, 2 ids in "item", .* weekly \(2 missing periods read as gaps\)/,
@@ -312,7 +312,7 @@ describe("echolot batch and audit in long format", () => {
     const wide = checkJson([csvFile("b-wide.csv", bColumn)]);
     const bRow = doc.series.find((s) => s.label === "b")!;
     expect(bRow.n).toBe(28);
-    expect(bRow.q).toBe(wide.joint.q);
+    expect(bRow.statistic).toBe(wide.joint.q);
   });
 
   it("refuses a duplicate (id, time), naming both lines", () => {
@@ -329,7 +329,7 @@ describe("echolot batch and audit in long format", () => {
   it("audits every id", () => {
     const text = ok(runCli(["audit", file, ...LONG, "--horizon", "1"]), "audit long");
     expect(text.split("\n")[0]).toMatch(/^read: .*long format/);
-    expect(text).toMatch(/^a\s+30\s/m);
-    expect(text).toMatch(/^b\s+28\s/m);
+    expect(text).toMatch(/^\s+\d+ a\s+30\s/m);
+    expect(text).toMatch(/^\s+\d+ b\s+28\s/m);
   });
 });

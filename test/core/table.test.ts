@@ -82,6 +82,18 @@ describe("detectDialect(sample)", () => {
     expect(detectDialect("value\n1,5\n-2,25\n", true)).toEqual({ delimiter: "\t", decimal: "," });
   });
 
+  it("reads one decimal-comma number a line, without a header, as one column", () => {
+    // The pane's paste of cells copied in a decimal-comma locale (issue 14).
+    expect(detectDialect("-0,272644\n0,1\n12,5\n", true)).toEqual({
+      delimiter: "\t",
+      decimal: ",",
+    });
+    // A negative second field, a header or a single line keeps the comma as delimiter.
+    expect(detectDialect("3,-5\n4,7\n", true).delimiter).toBe(",");
+    expect(detectDialect("a,b\n3,5\n4,7\n", true).delimiter).toBe(",");
+    expect(detectDialect("3,5\n", true).delimiter).toBe(",");
+  });
+
   it("lets the user's choice win, and refuses the comma as both delimiter and decimal mark", () => {
     expect(detectDialect("a,b\n1,2\n", true, { delimiter: ";" }).delimiter).toBe(";");
     expect(() => detectDialect("a\n1\n", true, { delimiter: ",", decimal: "," })).toThrow(

@@ -33,4 +33,23 @@ describe("seriesFromText(text, origin)", () => {
     expect(seriesFromText("1.5\t2\n3\t-4\n0\t7\n", "the pasted values").series).toHaveLength(2);
     expect(seriesFromText("1 2 3 5 8", "the pasted values").series[0]!.count).toBe(5);
   });
+
+  it("reads decimal commas pasted one a line as one column of decimals, and says how", () => {
+    // The case: split at the comma, the whole-number parts were judged instead.
+    const { series, reading } = seriesFromText("-0,272644\n0,1\n1,25\n", "the pasted values");
+    expect(series).toHaveLength(1);
+    expect(Array.from(series[0]!.values)).toEqual([-0.272644, 0.1, 1.25]);
+    expect(reading).toBe('Read as one value a line, decimal comma: "-0,272644" is -0.272644.');
+  });
+
+  it("reads semicolon-separated decimal commas on one line as one series, and says how", () => {
+    const { series, reading } = seriesFromText("-0,5;0,25;1,75", "the pasted values");
+    expect(Array.from(series[0]!.values)).toEqual([-0.5, 0.25, 1.75]);
+    expect(reading).toBe('Read as one row of values, decimal comma: "-0,5" is -0.5.');
+  });
+
+  it("says a comma-separated file with a header was read with a decimal point", () => {
+    const { reading } = seriesFromText("a,b\n1.5,2\n3,4.25\n", "t.csv");
+    expect(reading).toBe('Read as comma-separated columns, decimal point: "1.5" is 1.5.');
+  });
 });

@@ -15,7 +15,9 @@ describe("echolot report FILE.csv --out report.html", () => {
     const result = runCli(["report", "test/fixtures/series-f.csv", "--out", target]);
     expect(result.stderr).toBe("");
     expect(result.status).toBe(0);
-    expect(result.stdout.trim().split("\n").at(-1)).toBe(`wrote ${target}: yield, ■ structure`);
+    expect(result.stdout.trim().split("\n").at(-1)).toBe(
+      `wrote ${target}: yield, ■ structure, biased`,
+    );
     const html = readFileSync(target, "utf8");
     const table = lagTable(seriesF(), {});
     expect(html).toContain(
@@ -79,7 +81,7 @@ describe("echolot report FILE.csv --out report.html", () => {
     const target = join(out, "four.html");
     const result = runCli(["report", file, "--season", "13", "--out", target]);
     expect(result.status, result.stderr).toBe(0);
-    expect(result.stdout).toMatch(/^wrote .*four\.html: batch report of 4 columns, \d+ flagged/m);
+    expect(result.stdout).toMatch(/^wrote .*four\.html: batch report of 4 columns, \d+ kept/m);
     const html = readFileSync(target, "utf8");
     expect(html).toContain("Which of these 4 series still carry a pattern");
     expect(html).toContain('<table class="figures batch">');
@@ -109,7 +111,7 @@ describe("echolot report FILE.csv --out report.html", () => {
       join(out, "x.html"),
     ]);
     expect(json.status).toBe(2);
-    expect(json.stderr).toContain("report does not take --json");
+    expect(json.stderr).toContain("unknown option --json for report");
     const bad = runCli([
       "report",
       "test/fixtures/series-f.csv",
