@@ -12,6 +12,8 @@
  *   npm run build:local   production build with the local copy: tests, offline use
  *   npm start             dev server with the local copy, https on port 3000 (http on 127.0.0.1
  *                         as a fallback)
+ *   npm run build:test    both builds the tests read, in one run: the local one into dist/ and
+ *                         the CDN one into test-output/cdn-build/ (`--env testBuilds`)
  */
 /* eslint-disable @typescript-eslint/no-require-imports -- a CommonJS file, loaded by webpack-cli */
 const path = require("node:path");
@@ -106,7 +108,23 @@ function officeJsSource(env, production) {
   return chosen;
 }
 
+/** Where the CDN build the tests read is written (`--env testBuilds`). */
+const CDN_TEST_BUILD = path.resolve(__dirname, "test-output", "cdn-build");
+
 module.exports = async (env, argv) => {
+  if (env?.testBuilds) {
+    // One webpack run for both builds the tests read (test/setup/freshBuilds.ts checks them).
+    const local = await configuration({ ...env, officeJs: "local" }, argv);
+    const cdn = await configuration({ ...env, officeJs: "cdn" }, argv);
+    return [
+      { ...local, name: "local" },
+      { ...cdn, name: "cdn", output: { ...cdn.output, path: CDN_TEST_BUILD } },
+    ];
+  }
+  return configuration(env, argv);
+};
+
+async function configuration(env, argv) {
   const production = argv.mode === "production";
   const officeJs = officeJsSource(env ?? {}, production);
   const useCdn = officeJs === "cdn";
@@ -162,4 +180,4 @@ module.exports = async (env, argv) => {
     watchOptions: { ignored: ["**/node_modules/**", "**/dist/**", "**/build/**", "**/.git/**"] },
     ...(serving ? { devServer: await devServer() } : {}),
   };
-};
+}

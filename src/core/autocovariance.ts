@@ -235,6 +235,14 @@ export interface Autocorrelation {
  * 0 ≤ maxLag < series length). Refuses a constant series: its autocorrelation is undefined.
  * `into`: an array of the series' length the caller gives up for the deviations (centre.ts), so
  * that a series the caller made (the squared deviations) is centred where it lies.
+ *
+ * @example
+ * // 1, 2, 3, 4: deviations −1.5, −0.5, 0.5, 1.5 from the mean 2.5; Σd² = 5 and n = 4.
+ * const series = seriesFromNumbers([1, 2, 3, 4]);
+ * autocorrelation(series, 2).autocovariance; // → [1.25, 0.3125, -0.375]
+ * autocorrelation(series, 2).correlation; // → [1, 0.25, -0.3]
+ * // A gap keeps its position: only the pair (3, 4) is one step apart.
+ * autocorrelation(seriesFromValues([1, "", 3, 4]), 1).pairs; // → [3, 1]
  */
 export function autocorrelation(
   series: Series,

@@ -20,7 +20,7 @@
  */
 import { autocorrelation } from "./autocovariance";
 import { normalTwoSided } from "./distributions";
-import { invalid, isEcholotError, seriesName } from "./errors";
+import { invalid, isEcholotError, requireWholeNumber, seriesName } from "./errors";
 import { requireValues, resolveAlpha } from "./options";
 import type { Series } from "./types";
 
@@ -72,12 +72,14 @@ export function defaultHacLags(n: number): number {
 /** Validates L: a whole number from 0 to n − 1. */
 function resolveHacLags(hacLags: number | null | undefined, n: number): number {
   if (hacLags === null || hacLags === undefined) return defaultHacLags(n);
-  if (!(Number.isInteger(hacLags) && hacLags >= 0 && hacLags <= n - 1)) {
-    invalid(
+  return requireWholeNumber(
+    "hacLags",
+    hacLags,
+    0,
+    n - 1,
+    () =>
       `hacLags must be a whole number from 0 to ${n - 1}, the last lag the standard error allows for (the series has ${n} values; got ${hacLags})`,
-    );
-  }
-  return hacLags;
+  );
 }
 
 /**

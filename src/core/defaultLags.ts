@@ -7,6 +7,14 @@
  * series allows a verdict: to 2m when 2m ≤ n/4, else to m when m ≤ n/4 (the verdict judges up to
  * K = n/4). Otherwise the seasonal lag stays untested and the verdict's reason says so
  * (`untestedSeasonalLags`).
+ *
+ * @example
+ * defaultMaxLag(240, null); // → 10
+ * defaultMaxLag(30, null); // → 6
+ * // Weekly data with a 13-week cycle: ⌊104/5⌋ = 20 is raised to 2m = 26 (26 ≤ 104/4).
+ * defaultMaxLag(104, 13); // → 26
+ * // Monthly data, 5 years: 2m = 24 exceeds n/4 = 15, and K = 12 already reaches m.
+ * defaultMaxLag(60, 12); // → 12
  */
 export function defaultMaxLag(n: number, season: number | null): number {
   const preferred = season === null ? 10 : 2 * season;

@@ -32,6 +32,11 @@ const LARGE_CHI_SQUARE = 1000;
  * P(χ²_df ≥ x) = Q(df/2, x/2), the regularised upper incomplete gamma: stdlib's gammainc for
  * ordinary arguments, and Echolot's own series and continued fraction (chiSquareTail.ts) beyond
  * 1000, where stdlib's is off by up to a few percent.
+ *
+ * @example
+ * // With 2 df the χ² law is exponential with mean 2: P(χ² ≥ x) = e^(−x/2).
+ * chiSquareUpperTail(2 * Math.log(20), 2); // ≈ 0.05
+ * chiSquareUpperTail(0, 3); // → 1
  */
 export function chiSquareUpperTail(x: number, df: number): number {
   if (Number.isNaN(x) || !(df > 0)) return NaN;
@@ -42,7 +47,12 @@ export function chiSquareUpperTail(x: number, df: number): number {
   return floored(gammainc(x / 2, df / 2, true, true));
 }
 
-/** P(Z ≥ z) for the standard normal, erfc(z/√2)/2. */
+/**
+ * P(Z ≥ z) for the standard normal, erfc(z/√2)/2.
+ *
+ * @example
+ * normalUpperTail(0); // → 0.5
+ */
 export function normalUpperTail(z: number): number {
   if (Number.isNaN(z)) return NaN;
   return floored(0.5 * erfc(z / Math.SQRT2));

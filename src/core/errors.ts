@@ -10,19 +10,53 @@
  */
 export type EcholotErrorKind = "invalid" | "short";
 
+/**
+ * The argument a refusal is about, by the core's name for it (`maxLag`, `season`, `hacLags`, …),
+ * with the whole numbers it allows (from `low` to `high`; none when `high` < `low`). Each edge
+ * spells the name as its users typed it (`--lags`, `lags`, "Max lag") instead of reading the
+ * message text.
+ */
+export interface RefusedParameter {
+  readonly name: string;
+  readonly low: number;
+  readonly high: number;
+}
+
 export class EcholotError extends Error {
   readonly kind: EcholotErrorKind;
+  /** The argument refused, when the refusal is about one (see `requireWholeNumber`). */
+  readonly parameter: RefusedParameter | undefined;
 
-  constructor(kind: EcholotErrorKind, message: string) {
+  constructor(kind: EcholotErrorKind, message: string, parameter?: RefusedParameter) {
     super(message);
     this.name = "EcholotError";
     this.kind = kind;
+    this.parameter = parameter;
   }
 }
 
 /** Throws an `invalid` EcholotError with the message: the user has to fix the input. */
 export function invalid(message: string): never {
   throw new EcholotError("invalid", message);
+}
+
+/**
+ * `value` when it is a whole number from `low` to `high`; otherwise throws an `invalid`
+ * EcholotError with the message `describe()` writes and the parameter with its range. The one
+ * whole-number check of the core: a negated comparison, so NaN, ±Infinity, fractions and
+ * non-numbers are all refused.
+ */
+export function requireWholeNumber(
+  name: string,
+  value: unknown,
+  low: number,
+  high: number,
+  describe: () => string,
+): number {
+  if (!(Number.isInteger(value) && (value as number) >= low && (value as number) <= high)) {
+    throw new EcholotError("invalid", describe(), { name, low, high });
+  }
+  return value as number;
 }
 
 /** Throws a `short` EcholotError with the message: there are too few values. */

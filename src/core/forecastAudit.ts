@@ -27,7 +27,7 @@ import { auditLevels, type AuditLevels } from "./auditReference";
 import { defaultMaxLag, untestedSeasonalLags } from "./defaultLags";
 import { corridorCrossings, innerCorridor } from "./corridors";
 import { normalTwoSided } from "./distributions";
-import { invalid } from "./errors";
+import { requireWholeNumber } from "./errors";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
 import { formatLevel, formatNumber, pPhrase } from "./format";
 import { horizonBias, type HorizonBias } from "./horizonBias";
@@ -78,12 +78,14 @@ export interface ForecastAudit {
 
 /** Validates h: a whole number from 1 to n − 1 (at least lag h must be left to test). */
 function resolveHorizon(horizon: number | null | undefined, n: number): number {
-  if (!(Number.isInteger(horizon) && (horizon as number) >= 1 && (horizon as number) <= n - 1)) {
-    invalid(
+  return requireWholeNumber(
+    "horizon",
+    horizon,
+    1,
+    n - 1,
+    () =>
       `horizon must be a whole number from 1 to ${Math.max(1, n - 1)}, the number of periods ahead the forecasts were made (1 for one-step-ahead; got ${String(horizon)})`,
-    );
-  }
-  return horizon as number;
+  );
 }
 
 function resolveAuditMaxLag(
@@ -96,12 +98,14 @@ function resolveAuditMaxLag(
   if (given === null || given === undefined) {
     return Math.min(n - 1, h - 1 + defaultMaxLag(n, season));
   }
-  if (!(Number.isInteger(given) && given >= h && given <= n - 1)) {
-    invalid(
+  return requireWholeNumber(
+    "maxLag",
+    given,
+    h,
+    n - 1,
+    () =>
       `maxLag must be a whole number from the horizon ${h} to ${n - 1} (the series has ${n} values; got ${given})`,
-    );
-  }
-  return given;
+  );
 }
 
 export function forecastAudit(series: Series, options: ForecastAuditOptions): ForecastAudit {

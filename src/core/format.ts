@@ -5,7 +5,14 @@
 import { isPValueBound } from "./distributions";
 import type { ReferencedP } from "./verdictReference";
 
-/** A p-value for prose: "0.42", "0.0054", "3.2e-7", or "< 1e-300" at the floor. */
+/**
+ * A p-value for prose: "0.42", "0.0054", "3.2e-7", or "< 1e-300" at the floor.
+ *
+ * @example
+ * formatP(0.4213); // → "0.42"
+ * formatP(0.00536); // → "0.0054"
+ * formatP(3.24e-7); // → "3.2e-7"
+ */
 export function formatP(p: number): string {
   if (Number.isNaN(p)) return "undefined";
   if (isPValueBound(p)) return "< 1e-300";
@@ -55,7 +62,14 @@ export function formatNameList(names: readonly string[], most = 10): string {
   return rest > 0 ? `${shown} and ${rest} more` : shown;
 }
 
-/** "lag 7", "lags 7, 19", "lags 1, 2, 3 and 9 more". */
+/**
+ * "lag 7", "lags 7, 19", "lags 1, 2, 3 and 9 more".
+ *
+ * @example
+ * formatLagList([7]); // → "lag 7"
+ * formatLagList([7, 19]); // → "lags 7, 19"
+ * formatLagList([1, 2, 3, 4, 5], 3); // → "lags 1, 2, 3 and 2 more"
+ */
 export function formatLagList(lags: readonly number[], most = 8): string {
   if (lags.length === 1) return `lag ${lags[0]}`;
   const shown = lags.slice(0, most).join(", ");

@@ -82,7 +82,14 @@ export function seriesFromCells(
   });
 }
 
-/** Reads a plain list of cells or numbers by the intake rules above. */
+/**
+ * Reads a plain list of cells or numbers by the intake rules above.
+ *
+ * @example
+ * // A text first cell is the label; the blank inside stays as a gap; trailing blanks are trimmed.
+ * const series = seriesFromValues(["resid", 1.5, "", 2, 4, ""]);
+ * [series.label, series.count, series.gaps, series.values.length]; // → ["resid", 3, 1, 4]
+ */
 export function seriesFromValues(list: readonly unknown[], options: IntakeOptions = {}): Series {
   return readSeries(list, false, options);
 }

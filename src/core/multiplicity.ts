@@ -10,7 +10,14 @@
  * NaN p-values are left out of the family and stay NaN. Cost O(K log K) for Holm and BH.
  */
 
-/** Per-test level a = 1 − (1 − α)^{1/K} that keeps the family-wise level at α. */
+/**
+ * Per-test level a = 1 − (1 − α)^{1/K} that keeps the family-wise level at α.
+ *
+ * @example
+ * sidakLevel(0.05, 1); // → 0.05
+ * // 1 − 0.95^(1/2) = 1 − 0.974679434480896…
+ * sidakLevel(0.05, 2); // ≈ 0.025320565519103666
+ */
 export function sidakLevel(alpha: number, tests: number): number {
   return -Math.expm1(Math.log1p(-alpha) / tests);
 }
@@ -27,7 +34,13 @@ function rankedFinite(pValues: ArrayLike<number>): number[] {
   return order.sort((a, b) => (pValues[a] as number) - (pValues[b] as number));
 }
 
-/** Holm step-down adjusted p-values, in input order. */
+/**
+ * Holm step-down adjusted p-values, in input order.
+ *
+ * @example
+ * // Sorted: 0.01 × 3, then 0.03 × 2, then 0.04 × 1 raised to the running maximum 0.06.
+ * holmAdjust([0.01, 0.04, 0.03]); // → [0.03, 0.06, 0.06]
+ */
 export function holmAdjust(pValues: ArrayLike<number>): Float64Array {
   const adjusted = new Float64Array(pValues.length).fill(NaN);
   const order = rankedFinite(pValues);
@@ -40,7 +53,13 @@ export function holmAdjust(pValues: ArrayLike<number>): Float64Array {
   return adjusted;
 }
 
-/** Benjamini–Hochberg q-values (adjusted p-values), in input order. */
+/**
+ * Benjamini–Hochberg q-values (adjusted p-values), in input order.
+ *
+ * @example
+ * // 3 × 0.04 / 3 = 0.04; 3 × 0.03 / 2 = 0.045 lowered to 0.04; 3 × 0.01 / 1 = 0.03.
+ * benjaminiHochberg([0.01, 0.04, 0.03]); // → [0.03, 0.04, 0.04]
+ */
 export function benjaminiHochberg(pValues: ArrayLike<number>): Float64Array {
   const adjusted = new Float64Array(pValues.length).fill(NaN);
   const order = rankedFinite(pValues);

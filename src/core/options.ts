@@ -4,7 +4,7 @@
  * use negated comparisons (`!(x >= 1)`) so that NaN is refused too.
  */
 import { defaultMaxLag } from "./defaultLags";
-import { invalid, tooShort } from "./errors";
+import { invalid, requireWholeNumber, tooShort } from "./errors";
 import { BAND_KINDS, TEST_KINDS, type BandKind, type Series, type TestKind } from "./types";
 
 /** Options as a caller gives them; `null` or absent means "use the default". */
@@ -28,10 +28,6 @@ export interface ResolvedLagOptions {
 
 export const DEFAULT_ALPHA = 0.05;
 
-function isWhole(x: number): boolean {
-  return Number.isInteger(x);
-}
-
 function values(n: number): string {
   return `${n} value${n === 1 ? "" : "s"}`;
 }
@@ -47,10 +43,13 @@ export function resolveAlpha(alpha: number | null | undefined): number {
 
 /** Validates a whole-number lag count from 1 to n − 1, named `name` in the message. */
 export function resolveLagCount(name: string, value: number, n: number): number {
-  if (!(isWhole(value) && value >= 1 && value <= n - 1)) {
-    invalid(`${name} must be a whole number from 1 to ${n - 1} (the series has ${values(n)})`);
-  }
-  return value;
+  return requireWholeNumber(
+    name,
+    value,
+    1,
+    n - 1,
+    () => `${name} must be a whole number from 1 to ${n - 1} (the series has ${values(n)})`,
+  );
 }
 
 /**
@@ -71,12 +70,14 @@ export function resolveLagCountOrDefault(
 /** Validates the season length m: a whole number from 2 to n − 1. */
 export function resolveSeason(season: number | null | undefined, n: number): number | null {
   if (season === null || season === undefined) return null;
-  if (!(isWhole(season) && season >= 2 && season <= n - 1)) {
-    invalid(
+  return requireWholeNumber(
+    "season",
+    season,
+    2,
+    n - 1,
+    () =>
       `season must be a whole number from 2 to ${Math.max(2, n - 1)}, the number of periods in one cycle, such as 12 for monthly data (got ${season})`,
-    );
-  }
-  return season;
+  );
 }
 
 /** Requires at least `needed` values present. */
@@ -92,12 +93,15 @@ export function resolveLagOptions(series: Series, options: LagOptions = {}): Res
   const alpha = resolveAlpha(options.alpha);
   const season = resolveSeason(options.season, n);
   const maxLag = resolveLagCountOrDefault("maxLag", options.maxLag, n, season);
-  const fittedParams = options.fittedParams ?? 0;
-  if (!(isWhole(fittedParams) && fittedParams >= 0 && fittedParams < maxLag)) {
-    invalid(
-      `fittedParams must be a whole number from 0 to ${maxLag - 1}: the test's degrees of freedom are ${maxLag} lags − fittedParams and must be at least 1 (got ${fittedParams})`,
-    );
-  }
+  const given = options.fittedParams ?? 0;
+  const fittedParams = requireWholeNumber(
+    "fittedParams",
+    given,
+    0,
+    maxLag - 1,
+    () =>
+      `fittedParams must be a whole number from 0 to ${maxLag - 1}: the test's degrees of freedom are ${maxLag} lags − fittedParams and must be at least 1 (got ${given})`,
+  );
   return {
     maxLag,
     alpha,

@@ -7,6 +7,10 @@
  * Two coefficient rows of length K are reused, so the cost is O(K²) time and O(K) memory.
  * Input: r_0..r_K (r_0 = 1). Output: φ_kk for k = 1..K at index k−1. A NaN lag makes every later
  * partial NaN (undefined from there on).
+ *
+ * @example
+ * // The correlations of an AR(1) with φ = 0.5 (r_k = 0.5^k): one partial, then none.
+ * partialAutocorrelation([1, 0.5, 0.25, 0.125]); // → [0.5, 0, 0]
  */
 export function partialAutocorrelation(correlation: ArrayLike<number>): Float64Array {
   const maxLag = correlation.length - 1;

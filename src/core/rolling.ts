@@ -23,7 +23,7 @@
  */
 import { autocorrelation } from "./autocovariance";
 import { defaultMaxLag } from "./defaultLags";
-import { invalid, isEcholotError } from "./errors";
+import { invalid, isEcholotError, requireWholeNumber } from "./errors";
 import { jointTest } from "./portmanteau";
 import type { Series } from "./types";
 
@@ -52,10 +52,13 @@ export interface RollingCheck {
 const CANCELLATION_LIMIT = 1e-4;
 
 function resolveWhole(name: string, value: number, lo: number, hi: number, what: string): number {
-  if (!(Number.isInteger(value) && value >= lo && value <= hi)) {
-    invalid(`${name} must be a whole number from ${lo} to ${hi} ${what} (got ${value})`);
-  }
-  return value;
+  return requireWholeNumber(
+    name,
+    value,
+    lo,
+    hi,
+    () => `${name} must be a whole number from ${lo} to ${hi} ${what} (got ${value})`,
+  );
 }
 
 export function rollingCheck(series: Series, options: RollingOptions): RollingCheck {

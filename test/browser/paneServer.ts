@@ -1,13 +1,13 @@
 /**
- * For the browser tests: the built pane (dist/, or a fresh build of our own when dist/ is missing
- * or older than the pane's sources) served on 127.0.0.1, and Debian's Chromium located.
+ * For the browser tests: the built pane (the current build from `npm run build:test`; a test never
+ * builds) served on 127.0.0.1, and Debian's Chromium located.
  */
-import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, rmSync, statSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { createServer, type Server } from "node:http";
-import { dirname, extname, join, normalize, resolve } from "node:path";
+import { extname, join, normalize, resolve } from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { requireFreshBuild } from "../runner/builds";
 
 export const ROOT = resolve(__dirname, "..", "..");
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
@@ -24,72 +24,14 @@ const TYPES: Readonly<Record<string, string>> = {
   ".xml": "application/xml",
 };
 
-/** Where a build gets office.js: its local copy (tests, offline) or the CDN (publishing). */
-export type OfficeJsSource = "local" | "cdn";
-
-/** Why a built pane in `dir` cannot be used, or undefined when it is current. */
-function staleness(dir: string, officeJs: OfficeJsSource): string | undefined {
-  const page = join(dir, "taskpane.html");
-  const bundle = join(dir, "taskpane.js");
-  const map = join(dir, "taskpane.js.map");
-  if (!existsSync(page) || !existsSync(bundle) || !existsSync(map))
-    return `${dir} has no built pane`;
-  // The minified page may leave the attribute unquoted: src=office-js/office.js.
-  const local = /src="?office-js\/office\.js/.test(readFileSync(page, "utf8"));
-  if (local !== (officeJs === "local"))
-    return `${dir} is not a build with the ${officeJs} office.js`;
-  const built = Math.min(statSync(page).mtimeMs, statSync(bundle).mtimeMs);
-  const sources = (JSON.parse(readFileSync(map, "utf8")) as { sources: string[] }).sources
-    .map((s) => /^webpack:\/\/[^/]*\/\.\/((?:src|taskpane|demo)\/[^?]+)/.exec(s)?.[1])
-    .filter((s): s is string => s !== undefined);
-  const config = ["taskpane/taskpane.html", "taskpane/taskpane.css", "scripts/content-policy.cjs"];
-  for (const file of [...sources, ...config, "webpack.config.js"]) {
-    const path = join(ROOT, file);
-    if (!existsSync(path) || statSync(path).mtimeMs > built)
-      return `${file} is newer than the build`;
-  }
-  return undefined;
-}
-
-/** Builds into `own` (under test-output/) unless a current build is there already. */
-function buildInto(own: string, officeJs: OfficeJsSource, reason: string): string {
-  // Several test files may get here at once: one builds, the others wait for it.
-  const lock = `${own}.lock`;
-  mkdirSync(dirname(lock), { recursive: true });
-  for (;;) {
-    if (staleness(own, officeJs) === undefined) return own;
-    try {
-      mkdirSync(lock);
-    } catch {
-      Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 250);
-      continue;
-    }
-    try {
-      if (staleness(own, officeJs) === undefined) return own;
-      console.log(`browser tests: ${reason}; building the pane into ${own}`);
-      const webpack = join(ROOT, "node_modules", "webpack-cli", "bin", "cli.js");
-      const args = ["--mode", "production", "--env", `officeJs=${officeJs}`, "--output-path", own];
-      execFileSync(process.execPath, [webpack, ...args], { cwd: ROOT, stdio: "ignore" });
-      return own;
-    } finally {
-      rmSync(lock, { recursive: true, force: true });
-    }
-  }
-}
-
-/** The directory of a current local build: dist/, or our own build under test-output/. */
+/** The current local build (dist/, from `npm run build:test`); never built here. */
 export function builtPane(): string {
-  const dist = join(ROOT, "dist");
-  const reason = staleness(dist, "local");
-  if (reason === undefined) return dist;
-  // Not over dist/: other tests may be reading it right now.
-  return buildInto(join(ROOT, "test-output", "pane-build"), "local", reason);
+  return requireFreshBuild("local");
 }
 
-/** A current production build that loads office.js from its CDN (never dist/). */
+/** The current production build that loads office.js from its CDN (`npm run build:test`). */
 export function builtCdnPane(): string {
-  const own = join(ROOT, "test-output", "cdn-build");
-  return buildInto(own, "cdn", staleness(own, "cdn") ?? "no CDN build yet");
+  return requireFreshBuild("cdn");
 }
 
 export interface PaneServer {

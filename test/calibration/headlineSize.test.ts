@@ -12,6 +12,7 @@
  *   replications: the plain reading alone calls about 19% `structure` there (README calibration
  *   table); the headline, switching to the robust reading when Engle's LM fires, stays within
  *   [3%, 7.5%].
+ * The timeouts allow for a loaded 2-core machine (test/calibration/helpers.ts).
  */
 import { describe, it } from "vitest";
 import { biasSizeOf, headlineSizeOf } from "../../src/sim/calibration";
@@ -26,7 +27,7 @@ describe("biasCheck on white noise: within [4%, 6%] at 5% (4,000 replications a 
     it(`n ${n}`, () => {
       const share = biasSizeOf({ n, law: "normal", options: {}, replications: 4000, seed });
       expectShareWithin(share, 4000, 0.04, 0.06, `bias check on noise, n ${n}`);
-    });
+    }, 3_600_000);
   }
 });
 
@@ -42,7 +43,7 @@ describe("seriesHeadline on pure noise and on clustered volatility (1,000 replic
     expectShareWithin(result.structure, 1000, 0.035, 0.065, "headline structure, normal n 104");
     expectShareWithin(result.biased, 1000, 0.035, 0.065, "headline biased, normal n 104");
     expectShareWithin(result.either, 1000, 0, 0.11, "headline with any finding, normal n 104");
-  });
+  }, 3_600_000);
 
   it("GARCH(1,1) residuals, n 260: the robust reading keeps structure within [3%, 7.5%]", () => {
     const result = headlineSizeOf({
@@ -54,5 +55,5 @@ describe("seriesHeadline on pure noise and on clustered volatility (1,000 replic
     });
     expectShareWithin(result.structure, 1000, 0.03, 0.075, "headline structure, GARCH n 260");
     expectShareWithin(result.switched, 1000, 0.3, 1, "robust reading chosen, GARCH n 260");
-  });
+  }, 3_600_000);
 });

@@ -17,12 +17,12 @@ describe("noiseCheck(long and clustered noise) at its level", () => {
       const result = sizeOf({ n: 1000, law, options: {}, replications: 2500, seed });
       expectShareWithin(result.structure, 2500, 0.04, 0.06, `structure, ${law}, n 1000`);
       expectShareWithin(result.watch, 2500, 0, 0.05, `watch, ${law}, n 1000`);
-    }, 240_000);
+    }, 3_600_000);
   }
 
   it("noiseCheck(GARCH(1,1) noise, n 260, robust bands and robust test) keeps structure ≤ 6.5% over 1,500 replications", () => {
     const options = { bandKind: "robust", testKind: "robust" } as const;
     const result = sizeOf({ n: 260, law: "garch", options, replications: 1500, seed: 303 });
     expectShareWithin(result.structure, 1500, 0, 0.065, "structure, GARCH, robust options, n 260");
-  }, 240_000);
+  }, 3_600_000);
 });

@@ -43,7 +43,7 @@ describe("noiseCheck(pure noise): structure within [4%, 6%], watch ≤ 5% (2,500
     ] as const) {
       it(`noiseCheck(${law} noise, n ${n}) keeps structure at 5% and watch ≤ 5%`, () => {
         checkCell(n, law, null, seed + (law === "t3" ? 1000 : 0));
-      }, 120_000);
+      }, 3_600_000);
     }
   }
   for (const [n, seed] of [
@@ -53,7 +53,7 @@ describe("noiseCheck(pure noise): structure within [4%, 6%], watch ≤ 5% (2,500
   ] as const) {
     it(`noiseCheck(normal noise, n ${n}, season 12) keeps structure at 5% and watch ≤ 5%`, () => {
       checkCell(n, "normal", 12, seed);
-    }, 120_000);
+    }, 3_600_000);
   }
 });
 

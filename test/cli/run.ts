@@ -1,11 +1,15 @@
-/** Runs the built CLI (build/echolot.cjs, made by `npm run build:cli`) as a user would. */
+/**
+ * Runs the built CLI (build/echolot.cjs, made by `npm run build:cli`) as a user would; a bundle
+ * older than its sources is refused (test/runner/builds.ts).
+ */
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
+import { requireFreshBuild } from "../runner/builds";
 
 export const ROOT = resolve(__dirname, "..", "..");
-const CLI = join(ROOT, "build", "echolot.cjs");
+const CLI = join(requireFreshBuild("cli"), "echolot.cjs");
 
 export interface CliResult {
   readonly status: number | null;

@@ -3,6 +3,7 @@
  * copy before both bundles (one shared runtime), the pane's bundle registers no function, the
  * bundles send nothing out, each page states its content-security policy, and the production
  * build (`--env officeJs=cdn`) loads office.js from its CDN with exactly the origins it needs.
+ * Both builds are made once per run by `npm run build:test`; the tests only read them.
  */
 import { existsSync, readFileSync } from "node:fs";
 import { join } from "node:path";
@@ -94,10 +95,12 @@ describe("npm run build:local (the local office.js: tests, offline)", () => {
 });
 
 describe("npm run build (production: office.js from its CDN)", () => {
+  // The same production build with the CDN's office.js, written by `npm run build:test` (which
+  // npm test runs once) into test-output/cdn-build/.
   let out: string;
   beforeAll(() => {
     out = builtCdnPane();
-  }, 240_000);
+  });
 
   it("references office.js on its CDN first, then both bundles, and copies no local office.js", () => {
     const scripts = scriptSources(readFileSync(join(out, "taskpane.html"), "utf8"));

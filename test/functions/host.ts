@@ -5,38 +5,23 @@
  * `associate`. `invoke` then calls a function the way the host does — every declared parameter
  * passed, omitted optional ones as `null` — and returns the spilled array or the error value.
  */
-import { existsSync, readFileSync, statSync } from "node:fs";
-import { dirname, join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { existsSync, readFileSync } from "node:fs";
+import { join } from "node:path";
 import { createContext, runInContext } from "node:vm";
+import { BUILD_DIRECTORY, requireFreshBuild } from "../runner/builds";
 
-export const DIST = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "dist");
-
-export function distFile(name: string): string {
-  const path = join(DIST, name);
-  if (!existsSync(path)) {
-    throw new Error(`${path} is missing: run "npm run build" first (npm test does it)`);
-  }
-  return path;
-}
+export const DIST = BUILD_DIRECTORY.local;
 
 /**
- * Refuses a bundle older than any project source it contains (listed in its source map):
- * comparing a stale bundle with the current core would mislead.
+ * A file of the current local build. A stale bundle is refused (test/runner/builds.ts): comparing
+ * it with the current core would mislead.
  */
-function requireFreshBundle(bundle: string): void {
-  const built = statSync(bundle).mtimeMs;
-  const map = JSON.parse(readFileSync(distFile("functions.js.map"), "utf8")) as {
-    sources: string[];
-  };
-  for (const source of map.sources) {
-    const local = /^webpack:\/\/[^/]*\/\.\/((?:src|functions)\/.+\.ts)$/.exec(source)?.[1];
-    if (local === undefined) continue;
-    const file = join(DIST, "..", local);
-    if (!existsSync(file) || statSync(file).mtimeMs > built) {
-      throw new Error(`${bundle} is older than ${file}: run "npm run build" first`);
-    }
+export function distFile(name: string): string {
+  const path = join(requireFreshBuild("local"), name);
+  if (!existsSync(path)) {
+    throw new Error(`${path} is missing: run "npm run build:test" first (npm test does it)`);
   }
+  return path;
 }
 
 /** The host's error codes, as the runtime's `CustomFunctions.ErrorCode` holds them. */
@@ -171,7 +156,6 @@ function firstError(arg: unknown): HostError | undefined {
 export function loadBuiltFunctions(errorShape: ErrorShape = "flags"): LoadedAddIn {
   const metadata = readFunctionsJson();
   const bundle = distFile("functions.js");
-  requireFreshBundle(bundle);
   const source = readFileSync(bundle, "utf8");
   const handlers = new Map<string, (...args: unknown[]) => unknown>();
   const registered: string[] = [];

@@ -4,13 +4,17 @@
  * Math.max overflowed the stack from about 125,000 rows, and one empty column of a block turned
  * SERIESBATCHCHECK's whole block into #N/A.
  */
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { batchCheck, noiseCheck, seriesFromNumbers } from "../../src/core";
 import { whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
 import { loadBuiltFunctions, spilled, type CellResult, type LoadedAddIn } from "./host";
 
 const ROWS = 1_048_576;
+// Each test may take 30 minutes: the calls are bounded work that cannot hang, and the slowest
+// (SERIESCROSSCORR over two whole columns) took 39 s on a 2-core machine at load average 8 with
+// the files run one at a time, 77 s with both workers busy; a machine at load 19 is slower still.
+vi.setConfig({ testTimeout: 1_800_000 });
 let addIn: LoadedAddIn;
 const noise = whiteNoise(seededRandom(1048576), ROWS - 1);
 const other = whiteNoise(seededRandom(7), ROWS - 1);
