@@ -83,6 +83,7 @@ table.side-checks td.side-text { white-space: normal; }
 table.batch tr.flagged th { box-shadow: inset 3px 0 0 ${PALETTE.structure}; }
 table.side-checks th, table.side-checks td { text-align: left; }
 table.batch th[scope="row"] { text-align: left; }
+table.batch td[data-word] { white-space: normal; text-align: left; }
 tr.chosen { font-weight: 600; }
 .side-flag .side-word, .zone-beyond { color: #A64400; font-weight: 600; }
 .zone-between { color: ${PALETTE.watch}; }
