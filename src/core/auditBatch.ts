@@ -9,7 +9,7 @@
  * thrown. Cost: one audit per series.
  */
 import { batchLabel } from "./batch";
-import { invalid, isEcholotError } from "./errors";
+import { EcholotError, isEcholotError, type RefusedParameter } from "./errors";
 import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
 import { batchNote, lagWord, qPhrase } from "./batchHeadline";
 import { formatNumber, pPhrase } from "./format";
@@ -51,6 +51,8 @@ export interface AuditBatchEntry {
   readonly label: string;
   readonly audit: ForecastAudit | null;
   readonly problem: string;
+  /** The argument `problem` refuses, when it refuses one (kept across worker threads). */
+  readonly refused?: RefusedParameter;
 }
 
 /** The audit of one series of a batch; `index` names an unlabelled series. */
@@ -64,7 +66,8 @@ export function auditEntry(
     return { label, audit: forecastAudit(series, options), problem: "" };
   } catch (error) {
     if (!isEcholotError(error)) throw error;
-    return { label, audit: null, problem: error.message };
+    const refused = error.parameter === undefined ? {} : { refused: error.parameter };
+    return { label, audit: null, problem: error.message, ...refused };
   }
 }
 
@@ -89,7 +92,12 @@ export function auditBatch(
  */
 export function auditBatchOf(entries: readonly AuditBatchEntry[], alpha: number): AuditBatch {
   if (entries.every((entry) => entry.audit === null)) {
-    invalid(entries[0]?.problem ?? "there are no series to audit");
+    const first = entries[0];
+    throw new EcholotError(
+      "invalid",
+      first?.problem ?? "there are no series to audit",
+      first?.refused,
+    );
   }
   const dependenceP = entries.map((item) => item.audit?.levels.jointP.p ?? NaN);
   const biasP = entries.map((item) => item.audit?.bias.p ?? NaN);
