@@ -5,7 +5,7 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { centre } from "./centre";
-import { invalid, seriesName } from "./errors";
+import { invalid, isEcholotError, seriesName } from "./errors";
 import type { Series } from "./types";
 
 /**
@@ -34,9 +34,10 @@ export function squaredDeviationCorrelation(
   try {
     return autocorrelation(squares, maxLag, squares.values);
   } catch (error) {
+    // Only the autocorrelation's refusal (constant squares) is ours to reword; anything else is a bug.
+    if (!isEcholotError(error)) throw error;
     invalid(
       `the squared deviations of ${seriesName(series.label)} are constant (every value is equally far from the mean), so their autocorrelation is undefined`,
     );
-    throw error;
   }
 }
