@@ -4,8 +4,8 @@
  * and bands of the chosen kind, per-lag z and p (own and Šidák-adjusted), the cumulative joint
  * test, the false-alarm note, the verdict and the cautions on the sample's size; each lag's zone
  * against the two corridors, for its autocorrelation and its partial. Each formula and each
- * decision lives in its own file; this file only assembles. Cost O(n·K) plus O(K²) for the partials. `noiseCheck` gives the same verdict from
- * the same steps without the per-lag table.
+ * decision lives in its own file; this file only assembles. Cost O(n·K) plus O(K²) for the
+ * partials. `noiseCheck` gives the same verdict from the same steps without the per-lag table.
  */
 import { autocorrelation, type Autocorrelation } from "./autocovariance";
 import { robustVariances, standardErrors } from "./bands";
