@@ -32,23 +32,42 @@ export function sortAscending(values: Float64Array): Float64Array {
   return values;
 }
 
+/** Where the last `partition` left its two sides: a[first..partitionLow] and a[partitionHigh..last]. */
+let partitionLow = 0;
+let partitionHigh = 0;
+
+/**
+ * Hoare's partition of a[first..last] (inclusive) around the median of its first, middle and last
+ * values, returned. Afterwards a[first..partitionLow] ≤ pivot ≤ a[partitionHigh..last], and the
+ * values between the two sides equal the pivot. (Module state rather than a returned pair: the
+ * sort calls this thousands of times per reference and should allocate nothing.)
+ */
+function partition(a: Float64Array, first: number, last: number): number {
+  const x = a[first] as number;
+  const y = a[(first + last + 1) >>> 1] as number;
+  const z = a[last] as number;
+  const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y;
+  let i = first;
+  let j = last;
+  while (i <= j) {
+    while ((a[i] as number) < pivot) i++;
+    while ((a[j] as number) > pivot) j--;
+    if (i <= j) {
+      const swap = a[i] as number;
+      a[i++] = a[j] as number;
+      a[j--] = swap;
+    }
+  }
+  partitionLow = j;
+  partitionHigh = i;
+  return pivot;
+}
+
 function quicksort(a: Float64Array, low: number, high: number): void {
   while (high - low > INSERTION_LENGTH) {
-    const x = a[low] as number;
-    const y = a[(low + high) >>> 1] as number;
-    const z = a[high - 1] as number;
-    const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y;
-    let i = low;
-    let j = high - 1;
-    while (i <= j) {
-      while ((a[i] as number) < pivot) i++;
-      while ((a[j] as number) > pivot) j--;
-      if (i <= j) {
-        const swap = a[i] as number;
-        a[i++] = a[j] as number;
-        a[j--] = swap;
-      }
-    }
+    partition(a, low, high - 1);
+    const i = partitionHigh;
+    const j = partitionLow;
     // The smaller side by recursion, the larger by the loop: stack depth O(log m).
     if (j + 1 - low < high - i) {
       quicksort(a, low, j + 1);
@@ -126,24 +145,9 @@ function select(a: Float64Array, index: number): number {
   let low = 0;
   let high = a.length - 1;
   while (high - low > INSERTION_LENGTH) {
-    const x = a[low] as number;
-    const y = a[(low + high) >>> 1] as number;
-    const z = a[high] as number;
-    const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y;
-    let i = low;
-    let j = high;
-    while (i <= j) {
-      while ((a[i] as number) < pivot) i++;
-      while ((a[j] as number) > pivot) j--;
-      if (i <= j) {
-        const swap = a[i] as number;
-        a[i++] = a[j] as number;
-        a[j--] = swap;
-      }
-    }
-    // Now a[low..j] ≤ pivot ≤ a[i..high], and a[j+1..i−1] equal the pivot.
-    if (index <= j) high = j;
-    else if (index >= i) low = i;
+    const pivot = partition(a, low, high);
+    if (index <= partitionLow) high = partitionLow;
+    else if (index >= partitionHigh) low = partitionHigh;
     else return pivot;
   }
   quicksort(a, low, high + 1);
