@@ -27,6 +27,7 @@ import ExcelJS from "exceljs";
 import { beforeAll, describe, expect, it } from "vitest";
 import {
   batchCheck,
+  corridorZone,
   defaultMaxLag,
   lagTable,
   noiseCheck,
@@ -187,7 +188,12 @@ function atWrittenLevels(fresh: LagTable, written: LagTable): LagTable {
     ...fresh,
     outerLevel,
     jointLevel: written.jointLevel,
-    rows: fresh.rows.map((row) => ({ ...row, outer: Math.abs(row.z) > outerLevel })),
+    rows: fresh.rows.map((row) => ({
+      ...row,
+      outer: Math.abs(row.z) > outerLevel,
+      zone: corridorZone(row.z, { innerLevel: fresh.innerLevel, outerLevel }),
+      partialZone: corridorZone(row.partialZ, { innerLevel: fresh.innerLevel, outerLevel }),
+    })),
   };
 }
 
