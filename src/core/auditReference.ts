@@ -29,7 +29,7 @@ import {
   studentTwoSided,
 } from "./distributions";
 import { horizonT, rectangularVariance } from "./horizonBias";
-import { laterLagsBuffers, laterLagsTest } from "./laterLags";
+import { laterLagsBuffers, laterLagsQ } from "./laterLags";
 import { lagStatistics, lagStatisticsWork } from "./lagStatistics";
 import { fitMovingAverage, type MovingAverageModel } from "./movingAverageFit";
 import {
@@ -202,14 +202,10 @@ function levelsUnder(
   const chances = crossingChances(countTested(pairs, h, K), alpha);
   const summary: DrawSummary = { q: 0, largest: 0, keyLargest: 0, crossings: 0 };
   const laterZ = new Float64Array(K - h + 1);
+  const laterKeyLags = keyLags.map((lag) => lag - h + 1);
   const record = (b: number, tStar: number, qLater: number, z: ArrayLike<number>) => {
     for (let k = h; k <= K; k++) laterZ[k - h] = z[k - 1] as number;
-    summarise(
-      laterZ,
-      keyLags.map((lag) => lag - h + 1),
-      innerLevel,
-      summary,
-    );
+    summarise(laterZ, laterKeyLags, innerLevel, summary);
     tAbs[b] = Math.abs(tStar);
     qs[b] = qLater;
     largest[b] = summary.largest;
@@ -218,16 +214,17 @@ function levelsUnder(
       chances[summary.crossings] as number,
     );
   };
+  // Buffers the draws reuse: thousands of draws per audit should allocate nothing.
+  const drawSpec = { ...spec };
+  const gamma = new Float64Array(h);
   /** The three statistics of one drawn series (its later-lags Q returned, the rest recorded). */
   const drawStatistics = (b: number | null): number => {
     const { mean, c0 } = drawSeries();
-    lagStatistics(arrangement, { ...spec, sumSquares: c0 }, work);
-    const qLater = laterLagsTest(work.r, n, h, later).q;
+    drawSpec.sumSquares = c0;
+    lagStatistics(arrangement, drawSpec, work);
+    const qLater = laterLagsQ(work.r, n, h, later).q;
     if (b !== null) {
-      const gamma = Float64Array.from(
-        { length: h },
-        (_, j) => (j === 0 ? c0 : (work.sums[j] as number)) / n,
-      );
+      for (let j = 0; j < h; j++) gamma[j] = (j === 0 ? c0 : (work.sums[j] as number)) / n;
       record(b, horizonT(mean, rectangularVariance(gamma, h).value, n, h), qLater, work.z);
     }
     return qLater;

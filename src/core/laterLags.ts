@@ -43,6 +43,23 @@ export function laterLagsTest(
 ): LaterLagsTest {
   const maxLag = correlation.length - 1;
   const h = firstLag;
+  const { q, m } = laterLagsQ(correlation, n, h, buffers);
+  if (m === 0) return { firstLag: h, maxLag, q: NaN, df: 0, p: NaN };
+  return { firstLag: h, maxLag, q, df: m, p: chiSquareUpperTail(q, m) };
+}
+
+/**
+ * Q and its df m without the p-value: the covariances c_s of the MA(h−1) shape from r_1..r_{h−1}
+ * (into the buffers), then `laterLagsStatistic`. A Monte Carlo reference calls this once a draw
+ * and ranks the Q values, so it allocates nothing and computes no tail.
+ */
+export function laterLagsQ(
+  correlation: ArrayLike<number>,
+  n: number,
+  h: number,
+  buffers: LaterLagsBuffers,
+): { q: number; m: number } {
+  const maxLag = correlation.length - 1;
   const rho = (v: number): number => {
     const lag = Math.abs(v);
     if (lag === 0) return 1;
@@ -50,16 +67,13 @@ export function laterLagsTest(
     const r = correlation[lag] as number;
     return Number.isFinite(r) ? r : 0;
   };
-  const c = new Float64Array(maxLag - h + 1);
-  for (let s = 0; s < c.length; s++) {
+  const c = buffers.covariances;
+  for (let s = 0; s <= maxLag - h; s++) {
     let sum = 0;
     for (let v = 1 - h; v <= h - 1; v++) sum += rho(v) * rho(v + s);
     c[s] = sum;
   }
-
-  const { q, m } = laterLagsStatistic(correlation, n, h, c, buffers);
-  if (m === 0) return { firstLag: h, maxLag, q: NaN, df: 0, p: NaN };
-  return { firstLag: h, maxLag, q, df: m, p: chiSquareUpperTail(q, m) };
+  return laterLagsStatistic(correlation, n, h, c, buffers);
 }
 
 /** Work space for `laterLagsStatistic` with up to K tested lags. */
@@ -67,6 +81,8 @@ export interface LaterLagsBuffers {
   readonly lags: Int32Array;
   readonly scaled: Float64Array;
   readonly factor: Float64Array;
+  /** c_0..c_{K−h}, the covariances of the MA(h−1) shape. */
+  readonly covariances: Float64Array;
 }
 
 export function laterLagsBuffers(maxLag: number): LaterLagsBuffers {
@@ -74,6 +90,7 @@ export function laterLagsBuffers(maxLag: number): LaterLagsBuffers {
     lags: new Int32Array(maxLag + 1),
     scaled: new Float64Array(maxLag + 1),
     factor: new Float64Array((maxLag + 1) * (maxLag + 1)),
+    covariances: new Float64Array(maxLag + 1),
   };
 }
 

@@ -21,15 +21,18 @@ export interface MovingAverageModel {
 const STEPS = 400;
 
 function innovations(rho: Float64Array, q: number): Float64Array | null {
-  // θ_{m,j} for the current and previous m; v_m.
+  // v_m for every m so far; θ_{m,j} only for the last q + 1 values of m, in a ring: step m reads
+  // θ_{k,·} for k ≥ m − q. Its own row is written at j ≤ q and read (as zeros beyond q) up to
+  // j = 2q, so each row holds 2q + 1 entries, cleared before reuse.
   const v: number[] = [1];
-  const theta: Float64Array[] = [new Float64Array(0)];
+  const rows = Array.from({ length: q + 1 }, () => new Float64Array(2 * q + 1));
   const gamma = (lag: number) => (lag === 0 ? 1 : lag <= q ? (rho[lag - 1] as number) : 0);
   for (let m = 1; m <= STEPS; m++) {
-    const row = new Float64Array(m + 1);
+    const row = rows[m % (q + 1)] as Float64Array;
+    row.fill(0);
     for (let k = Math.max(0, m - q); k < m; k++) {
       let sum = gamma(m - k);
-      const rowK = theta[k] as Float64Array;
+      const rowK = rows[k % (q + 1)] as Float64Array;
       for (let j = Math.max(0, k - q); j < k; j++) {
         sum -= (row[m - j] as number) * (rowK[k - j] as number) * (v[j] as number);
       }
@@ -40,9 +43,8 @@ function innovations(rho: Float64Array, q: number): Float64Array | null {
       vm -= (row[m - j] as number) ** 2 * (v[j] as number);
     if (!(vm > 1e-8)) return null;
     v.push(vm);
-    theta.push(row);
   }
-  const last = theta[STEPS] as Float64Array;
+  const last = rows[STEPS % (q + 1)] as Float64Array;
   return Float64Array.from({ length: q }, (_, j) => last[j + 1] as number);
 }
 
