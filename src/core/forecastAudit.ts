@@ -21,7 +21,7 @@
  * m (raised to include the seasonal lags where n allows), so as many lags are counted as in the
  * noise check. Cost O(n·K + K³) plus the reference's draws.
  */
-import { autocorrelation } from "./autocovariance";
+import { autocorrelation } from "./autocorrelation";
 import { standardErrors } from "./bands";
 import { auditLevels, type AuditLevels } from "./auditReference";
 import { defaultMaxLag, untestedSeasonalLags } from "./defaultLags";

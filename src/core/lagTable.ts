@@ -6,7 +6,7 @@
  * assembles. Cost O(n·K) plus O(K²) for the partials. `noiseCheck` gives the same verdict from
  * the same steps without the per-lag table.
  */
-import { autocorrelation, type Autocorrelation } from "./autocovariance";
+import { autocorrelation, type Autocorrelation } from "./autocorrelation";
 import { robustVariances, standardErrors } from "./bands";
 import { corridorCrossings, innerCorridor, largestZ } from "./corridors";
 import { normalTwoSided } from "./distributions";

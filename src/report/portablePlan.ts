@@ -4,7 +4,7 @@
  * without the add-in, in Excel, LibreOffice Calc or Google Sheets. One plan, two writers: the
  * pane (office.js) and `echolot workbook` (an xlsx file).
  *
- * What the cells compute, as the core does (autocovariance.ts, bands.ts, portmanteau.ts,
+ * What the cells compute, as the core does (autocorrelation.ts, bands.ts, portmanteau.ts,
  * corridors.ts, falseAlarms.ts, verdict.ts):
  * - per data cell, helper columns: present (1/0), the value or 0, the deviation from the mean of
  *   the values present or 0 at a gap, and its square. A gap (blank, #N/A, any non-number) adds
