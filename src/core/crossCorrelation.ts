@@ -35,7 +35,8 @@ export interface CrossLag {
   readonly pairs: number;
   /** Noise band half-width z_{1−α/2}/√n. */
   readonly band: number;
-  readonly beyond: boolean;
+  /** |r_k| beyond the band. */
+  readonly crossesBand: boolean;
 }
 
 export interface CrossCorrelation {
@@ -126,7 +127,7 @@ export function crossCorrelation(
       pairs += (present[t + shiftX] as number) & (present[t + shiftY] as number);
     }
     const correlation = pairs > 0 ? sum.value / scale : NaN;
-    rows.push({ lag: k, correlation, pairs, band, beyond: Math.abs(correlation) > band });
+    rows.push({ lag: k, correlation, pairs, band, crossesBand: Math.abs(correlation) > band });
   }
   return {
     labelX: x.label,

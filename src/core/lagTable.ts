@@ -45,7 +45,7 @@ export interface LagRow {
   /** That p adjusted by Šidák for all K lags. */
   readonly pSidak: number;
   /** |z_k| beyond the inner corridor (its own band). */
-  readonly beyond: boolean;
+  readonly crossesBand: boolean;
   /** |z_k| beyond the outer corridor (Šidák over K lags). */
   readonly outer: boolean;
   /** Joint test over lags 1..k. */
@@ -117,7 +117,7 @@ interface Screen {
   /** Lag k at index k−1: r_k, z_k and the two corridors. */
   readonly lags: readonly VerdictLag[];
   readonly tested: number;
-  readonly beyondLags: readonly number[];
+  readonly crossingLags: readonly number[];
 }
 
 function jointTestInput(
@@ -165,7 +165,7 @@ function screen(
     },
     [testKind, bandKind, String(K), String(alpha), String(season)],
   );
-  const { lags, tested, beyondLags } = corridorCrossings(ac.correlation, se, {
+  const { lags, tested, crossingLags } = corridorCrossings(ac.correlation, se, {
     innerLevel,
     outerLevel: levels.outerLevel,
   });
@@ -181,13 +181,13 @@ function screen(
     levels,
     lags,
     tested,
-    beyondLags,
+    crossingLags,
   };
 }
 
 function conclude(s: Screen): { falseAlarm: FalseAlarmNote; verdict: Verdict } {
   const { maxLag, alpha, season } = s.resolved;
-  const falseAlarm = falseAlarmNote(s.tested, alpha, s.beyondLags);
+  const falseAlarm = falseAlarmNote(s.tested, alpha, s.crossingLags);
   const verdict = judge({
     n: s.ac.n,
     maxLag,
@@ -255,7 +255,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
   const partials = partialAutocorrelation(ac.correlation);
   const rows: LagRow[] = [];
   for (let k = 1; k <= K; k++) {
-    const { correlation, z, beyond, outer } = s.lags[k - 1] as VerdictLag;
+    const { correlation, z, crossesBand, outer } = s.lags[k - 1] as VerdictLag;
     const standardError = se[k - 1] as number;
     const pLag = normalTwoSided(z);
     rows.push({
@@ -267,7 +267,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
       z,
       pLag,
       pSidak: sidakAdjust(pLag, K),
-      beyond,
+      crossesBand,
       outer,
       jointQ: cumulative.q[k - 1] as number,
       jointDf: cumulative.df[k - 1] as number,

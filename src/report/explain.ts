@@ -119,8 +119,8 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
     falseAlarm: {
       tested: falseAlarm.tested,
       expected: falseAlarm.expected,
-      seen: falseAlarm.beyond,
-      lags: falseAlarm.beyondLags,
+      seen: falseAlarm.crossings,
+      lags: falseAlarm.crossingLags,
       chance: falseAlarm.chance,
     },
     items,
@@ -130,11 +130,11 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
 function falseAlarmText(table: LagTable, note: string): string {
   const outer = table.rows.filter((r) => r.outer).map((r) => r.lag);
   const corridor = `In the chart the inner corridor (±${formatNumber(table.innerLevel, 3)}) judges one lag on its own; the outer one (±${formatNumber(table.outerLevel, 3)}) holds for all ${table.maxLag} lags together`;
-  const beyond =
+  const outerSentence =
     outer.length === 0
       ? "no lag lies beyond it."
       : `${formatLagList(outer)} ${outer.length === 1 ? "lies" : "lie"} beyond it and ${outer.length === 1 ? "survives" : "survive"} the multiple-lag correction.`;
-  return `${note} ${corridor}: ${beyond}`;
+  return `${note} ${corridor}: ${outerSentence}`;
 }
 
 function seasonText(table: LagTable): string | undefined {
@@ -154,7 +154,7 @@ function seasonText(table: LagTable): string | undefined {
     const row = table.rows[lag - 1];
     if (row === undefined) continue;
     parts.push(
-      `Lag ${lag} (r = ${formatNumber(row.correlation, 3)}, z = ${formatNumber(row.z, 3)}) ${row.outer ? "lies beyond the all-lags corridor" : row.beyond ? "crosses its band" : "stays inside its band"}.`,
+      `Lag ${lag} (r = ${formatNumber(row.correlation, 3)}, z = ${formatNumber(row.z, 3)}) ${row.outer ? "lies beyond the all-lags corridor" : row.crossesBand ? "crosses its band" : "stays inside its band"}.`,
     );
   }
   return parts.join(" ");

@@ -68,10 +68,10 @@ function zoneOf(z: number, innerLevel: number, outerLevel: number): Zone | "none
   return "inside";
 }
 
-/** A lag row's zone, from the core's comparisons: `outer` is beyond, `beyond` alone is between. */
+/** A lag row's zone, from the core's comparisons: `outer` is beyond, `crossesBand` alone is between. */
 export function rowZone(row: LagRow): Zone | "none" {
   if (Number.isNaN(row.z)) return "none";
-  return row.outer ? "beyond" : row.beyond ? "between" : "inside";
+  return row.outer ? "beyond" : row.crossesBand ? "between" : "inside";
 }
 
 /** The points of one view. `squares` needs a table whose subject is the squared deviations. */

@@ -32,9 +32,9 @@ import type {
 import type { PlanCellContent } from "./placedReport";
 import { SCREENING_CAUTION } from "./verdictBadge";
 
-function zoneOf(z: number, beyond: boolean, outer: boolean): string {
+function zoneOf(z: number, crossesBand: boolean, outer: boolean): string {
   if (!Number.isFinite(z)) return "";
-  return outer ? "beyond" : beyond ? "between" : "inside";
+  return outer ? "beyond" : crossesBand ? "between" : "inside";
 }
 
 /**
@@ -48,7 +48,7 @@ function sheetVerdict(f: (name: FigureRow) => Figure | undefined): string {
   if ((typeof p === "number" && p < num("jointLevel")) || num("outerCount") > 0) {
     return "structure";
   }
-  const excess = num("beyond") > 0 && num("chance") < num("alpha");
+  const excess = num("crossings") > 0 && num("chance") < num("alpha");
   return f("lagOne") === "yes" || f("seasonal") === "yes" || excess ? "watch" : "clear";
 }
 
@@ -135,7 +135,7 @@ export function portableBlock(
   const outer = fig("outerLevel");
   const alpha = fig("alpha");
   const tested = fig("tested");
-  const beyond = fig("beyond");
+  const crossings = fig("crossings");
   figure("source", { value: src }, undefined);
   figure("n", { formula: `=COUNT(${src})` }, table.n, PORTABLE_FORMATS.count);
   const where = helpColumn(HELP.where);
@@ -180,9 +180,9 @@ export function portableBlock(
   figure("expected", { formula: `=${tested}*${alpha}` }, note.expected, PORTABLE_FORMATS.fixed);
   const zones = lagColumn(COL.zone);
   figure(
-    "beyond",
+    "crossings",
     { formula: `=COUNTIF(${zones},"between")+COUNTIF(${zones},"beyond")` },
-    note.beyond,
+    note.crossings,
     PORTABLE_FORMATS.count,
   );
   figure(
@@ -194,7 +194,7 @@ export function portableBlock(
   figure(
     "chance",
     {
-      formula: `=IF(${beyond}=0,1,SUMIF(${lagColumn(COL.lag)},">="&${beyond},${lagColumn(COL.pmf)}))`,
+      formula: `=IF(${crossings}=0,1,SUMIF(${lagColumn(COL.lag)},">="&${crossings},${lagColumn(COL.pmf)}))`,
     },
     note.chance,
     PORTABLE_FORMATS.p,
@@ -202,7 +202,7 @@ export function portableBlock(
   const crosses = (k: number) =>
     `OR(${lagCell(k, COL.zone)}="between",${lagCell(k, COL.zone)}="beyond")`;
   // Lag 1 and the seasonal lags as the sheet judges them: beyond the one-lag corridor.
-  const crossesInner = (k: number) => table.rows[k - 1]?.beyond === true;
+  const crossesInner = (k: number) => table.rows[k - 1]?.crossesBand === true;
   figure("lagOne", { formula: `=IF(${crosses(1)},"yes","no")` }, crossesInner(1) ? "yes" : "no");
   const seasonal =
     table.season === null ? [] : [table.season, 2 * table.season].filter((m) => m <= K);
@@ -222,7 +222,7 @@ export function portableBlock(
     ROW.verdict,
     1,
     {
-      formula: `=IF(OR(${n}<20,${K}>${n}/4),"short",IF(OR(${p}<${fig("jointLevel")},${fig("outerCount")}>0),"structure",IF(OR(${fig("lagOne")}="yes",${fig("seasonal")}="yes",AND(${beyond}>0,${fig("chance")}<${alpha})),"watch","clear")))`,
+      formula: `=IF(OR(${n}<20,${K}>${n}/4),"short",IF(OR(${p}<${fig("jointLevel")},${fig("outerCount")}>0),"structure",IF(OR(${fig("lagOne")}="yes",${fig("seasonal")}="yes",AND(${crossings}>0,${fig("chance")}<${alpha})),"watch","clear")))`,
     },
     { style: "verdict", figure: key("verdict") },
   );
@@ -315,7 +315,7 @@ export function portableBlock(
       {
         formula: `=IF(ISNUMBER(${z}),IF(ABS(${z})>${outer},"beyond",IF(ABS(${z})>${inner},"between","inside")),"")`,
       },
-      zoneOf(row.z, row.beyond, row.outer),
+      zoneOf(row.z, row.crossesBand, row.outer),
     );
     put(
       r,
