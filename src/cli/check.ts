@@ -16,7 +16,7 @@ import { releaseBetweenSteps } from "./memory";
 import { headlineJson, JSON_VERSION, lagTableJson, sideChecksJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   READ_OPTIONS,
   textOption,
   type ParsedCommand,
@@ -30,7 +30,7 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
     throw new UsageError(
       "check needs a CSV file: echolot check FILE.csv (or - for standard input)",
     );
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   const { series, source } = await readOneSeries(
     readingFrom(file, values),
     textOption(values, "column"),

@@ -186,7 +186,8 @@ export function numberOption(name: string, text: string | boolean | undefined): 
   return value;
 }
 
-export function lagOptionsFrom(values: OptionValues): LagOptions {
+/** The lag table and verdict options from the command's flags (`--lags`, `--season`, …). */
+export function lagOptionsFromFlags(values: OptionValues): LagOptions {
   return {
     maxLag: numberOption("lags", values.lags) ?? null,
     season: numberOption("season", values.season) ?? null,

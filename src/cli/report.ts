@@ -23,7 +23,7 @@ import { UsageError } from "./errors";
 import { readManySeries, readOneSeries } from "./input";
 import {
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   READ_OPTIONS,
   textOption,
   type ParsedCommand,
@@ -42,7 +42,7 @@ export async function runReport({ files, values }: ParsedCommand): Promise<strin
   if (out === undefined || out.trim() === "") {
     throw new UsageError("report needs --out FILE.html: where to write the report");
   }
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   const meta = { made: new Date(), version: ECHOLOT_VERSION };
   const name = file === "-" ? "standard input" : basename(file);
   const chosen = textOption(values, "column");

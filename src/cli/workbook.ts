@@ -31,7 +31,7 @@ import { UsageError } from "./errors";
 import { readManySeries, readOneSeries } from "./input";
 import {
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   READ_OPTIONS,
   textOption,
   type OptionValues,
@@ -220,7 +220,7 @@ export async function runWorkbook({ files, values }: ParsedCommand): Promise<str
   if (batch && values.column !== undefined) {
     throw new UsageError("--batch reads every column of numbers; --column is for one");
   }
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   const data = await readWorkbookData(file, values, batch);
   const plan = workbookPlan(data, options, {
     batch,
