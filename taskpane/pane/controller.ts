@@ -32,7 +32,7 @@ import { downloadText, fileNamePart } from "./download";
 import { RankedTable } from "./rankedTable";
 import {
   auditHorizonFrom,
-  lagOptionsFrom,
+  lagOptionsFromSettings,
   readSettingsForm,
   writeSettingsForm,
   type SettingsText,
@@ -160,7 +160,7 @@ export class PaneController {
     let index = this.index;
     let analysis: SeriesReport;
     try {
-      const options = lagOptionsFrom(text);
+      const options = lagOptionsFromSettings(text);
       ranking = this.rankingFor(input, text, options);
       const top = ranking?.list.items[0];
       if (this.pickTop && top !== undefined) index = top.index;

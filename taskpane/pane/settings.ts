@@ -37,7 +37,8 @@ function numberSetting(name: string, text: string): number | null {
   return value;
 }
 
-export function lagOptionsFrom(text: SettingsText): LagOptions {
+/** The lag table and verdict options from the settings form's text. */
+export function lagOptionsFromSettings(text: SettingsText): LagOptions {
   return {
     maxLag: numberSetting("maxLag", text.maxLag),
     season: numberSetting("season", text.season),
