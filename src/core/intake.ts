@@ -71,12 +71,12 @@ export function seriesFromCells(
     );
   }
   if (rows === 1 && columns > 1) {
-    return readSeries(cells[0] as readonly unknown[], false, {
+    return intakeCells(cells[0] as readonly unknown[], false, {
       ...options,
       describePosition: (i) => `column ${i + 1} of the range`,
     });
   }
-  return readSeries(cells, true, {
+  return intakeCells(cells, true, {
     ...options,
     describePosition: (i) => `row ${i + 1} of the range`,
   });
@@ -91,12 +91,12 @@ export function seriesFromCells(
  * [series.label, series.count, series.gaps, series.values.length]; // → ["resid", 3, 1, 4]
  */
 export function seriesFromValues(list: readonly unknown[], options: IntakeOptions = {}): Series {
-  return readSeries(list, false, options);
+  return intakeCells(list, false, options);
 }
 
 /** A gap-free series from numbers already known to be finite (tests, generators, the bench). */
 export function seriesFromNumbers(numbers: ArrayLike<number>, label = ""): Series {
-  return readSeries(numbers, false, { label, labelFromFirstCell: false });
+  return intakeCells(numbers, false, { label, labelFromFirstCell: false });
 }
 
 /** Cell i of a list, or the first cell of row i of a one-column range. */
@@ -109,7 +109,7 @@ function cellAt(source: ArrayLike<unknown>, fromColumn: boolean, i: number): unk
  * leading and trailing gaps (found first, so the arrays are allocated at their final length),
  * then each cell in order, so the first offending cell is the one named.
  */
-function readSeries(
+function intakeCells(
   source: ArrayLike<unknown>,
   fromColumn: boolean,
   options: IntakeOptions,
