@@ -15,7 +15,7 @@ import {
   type Series,
   type VolatilityCheck,
 } from "../core";
-import { biasFinding, normalityFinding, runsFinding, volatilityFinding } from "./checkLines";
+import { biasFinding, normalityFinding, runsFinding, volatilityFinding } from "./checkFindings";
 
 /** Each check's result, or the message saying why the data cannot support it. */
 export interface SideChecks {
