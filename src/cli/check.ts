@@ -8,7 +8,7 @@
  */
 import { headlineOf, lagTable, needsRobustReading, robustOptions, type Headline } from "../core";
 import { jointSpanText, lagTableText } from "../report";
-import { sideChecks, sideChecksText } from "../report/sideChecksText";
+import { sideChecks, sideChecksText } from "../report/sideChecks";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";

@@ -17,7 +17,7 @@ import type {
   VerdictWord,
 } from "../core";
 import { isPValueBound } from "../core";
-import type { SideChecks } from "../report/sideChecksText";
+import type { SideChecks } from "../report/sideChecks";
 
 /**
  * The JSON format's version. 2: batch and audit entries in ranked order with `rank`, `position`

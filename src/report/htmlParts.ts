@@ -16,7 +16,7 @@ import { escapeMarkup } from "./escape";
 import type { Explanation } from "./explain";
 import { jointTestName, lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
 import { PALETTE, ZONE_COLOURS, ZONE_SHORT, type Zone } from "./palette";
-import { sideFindings, type SideChecks } from "./sideChecksText";
+import { sideFindings, type SideChecks } from "./sideChecks";
 import { element, figure, signed, textElement } from "./svg";
 import { BADGES } from "./verdictBadge";
 

@@ -31,7 +31,7 @@ import { jointRibbonSvg } from "./jointRibbon";
 import { BAND_WORDS, jointTestName, VIEW_NAMES, type ChartView } from "./lagViews";
 import { PALETTE } from "./palette";
 import type { SeriesReport } from "./seriesReport";
-import type { SideChecks } from "./sideChecksText";
+import type { SideChecks } from "./sideChecks";
 import { element, textElement } from "./svg";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 

@@ -20,7 +20,7 @@ import {
 } from "../core";
 import { biasFinding, volatilityFinding } from "./checkFindings";
 import { explainVerdict, type Explanation } from "./explain";
-import { sideChecks, type SideChecks } from "./sideChecksText";
+import { sideChecks, type SideChecks } from "./sideChecks";
 
 export interface SeriesReport {
   readonly series: Series;
