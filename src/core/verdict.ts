@@ -17,6 +17,7 @@
 import type { FalseAlarmNote } from "./falseAlarms";
 import { normalQuantile, normalTwoSided } from "./distributions";
 import {
+  capitalise,
   formatLagList,
   formatLevel,
   formatNumber,
@@ -200,8 +201,4 @@ function untestedNote(input: VerdictInput): string {
   if (untested.length === 0) return "";
   const which = untested.length === 1 ? `lag ${untested[0]}` : `lags ${untested.join(" and ")}`;
   return `Seasonal ${which} not tested: ${input.maxLag} lags tested, and ${input.n} values allow at most ${Math.floor(input.n / 4)} for a verdict. `;
-}
-
-function capitalise(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
 }

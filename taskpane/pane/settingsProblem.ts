@@ -3,6 +3,7 @@
  * the message), and the core's message speaks the label's own words ("Max lag must be…", never
  * "maxLag must be…"), read from the form's labels so the two can never drift apart.
  */
+import { capitalise } from "../../src/core";
 import { SETTING_NAMES, type SettingName } from "./settings";
 
 /** The setting a core message is about: the option name it starts with, if any. */
@@ -34,7 +35,7 @@ export function inLabelWords(form: HTMLFormElement, message: string): string {
       offset === 0 ? label : label.charAt(0).toLowerCase() + label.slice(1),
     );
   }
-  return text.charAt(0).toUpperCase() + text.slice(1);
+  return capitalise(text);
 }
 
 /** Marks the refused field (or none) invalid, described by the problem's message. */
