@@ -10,7 +10,8 @@
  * The lag sums and their two paths are in lagProductSums.ts, the pair counts in pairCounts.ts.
  */
 import { centre } from "./centre";
-import { invalid, seriesName } from "./errors";
+import { invalid } from "./errors";
+import { seriesName } from "./seriesName";
 import { lagProductSums } from "./lagProductSums";
 import { pairCounts } from "./pairCounts";
 import type { Series } from "./types";

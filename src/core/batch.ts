@@ -25,6 +25,7 @@ import { batchRowHeadline } from "./batchHeadline";
 import type { Headline, Reading } from "./headline";
 import { benjaminiHochberg } from "./multiplicity";
 import { resolveAlpha, type LagOptions } from "./options";
+import { seriesName } from "./seriesName";
 import type { Series, VerdictWord } from "./types";
 import type { ReferencedP } from "./verdictReference";
 
@@ -83,7 +84,7 @@ export interface BatchCheck {
 
 /** A series' name among many: its label, or "series i" (counting from 1) when it has none. */
 export function batchLabel(series: Series, index: number): string {
-  return series.label === "" ? `series ${index + 1}` : series.label;
+  return seriesName(series.label, "cell", { item: index });
 }
 
 export function batchCheck(seriesList: readonly Series[], options: LagOptions = {}): BatchCheck {

@@ -20,7 +20,8 @@
  */
 import { autocorrelation } from "./autocorrelation";
 import { normalTwoSided } from "./distributions";
-import { invalid, isEcholotError, requireWholeNumber, seriesName } from "./errors";
+import { invalid, isEcholotError, requireWholeNumber } from "./errors";
+import { seriesName } from "./seriesName";
 import { requireValues, resolveAlpha } from "./options";
 import type { Series } from "./types";
 

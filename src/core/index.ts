@@ -1,5 +1,6 @@
 /** The public face of the core: pure TypeScript, no Office, no DOM, no file system. */
 export * from "./errors";
+export * from "./seriesName";
 export * from "./types";
 export * from "./sums";
 export * from "./intake";

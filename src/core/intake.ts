@@ -10,7 +10,8 @@
  * Nothing is silently dropped: dropping a value would shift every lag after it. O(n), one pass
  * over the cells, no copy of them.
  */
-import { EcholotError, invalid, seriesName, tooShort } from "./errors";
+import { EcholotError, invalid, tooShort } from "./errors";
+import { seriesName } from "./seriesName";
 import type { Series } from "./types";
 
 /** How a position is named in messages, from its 0-based index in the list given. */
@@ -236,7 +237,7 @@ export function blockColumns(rows: readonly (readonly unknown[])[]): BlockColumn
   for (let c = 0; c < width; c++) {
     const cells = rows.map((r) => r[c]);
     const head = cells[0];
-    const fallback = `column ${c + 1}`;
+    const fallback = seriesName("", "cell", { column: c });
     try {
       const series = seriesFromValues(cells, {
         label: fallback,

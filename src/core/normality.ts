@@ -8,7 +8,8 @@
  */
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
-import { invalid, seriesName } from "./errors";
+import { invalid } from "./errors";
+import { seriesName } from "./seriesName";
 import { requireValues } from "./options";
 import { CompensatedSum } from "./sums";
 import type { Series } from "./types";

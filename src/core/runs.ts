@@ -11,7 +11,8 @@
  * Cost O(n log n) for the median.
  */
 import { normalTwoSided } from "./distributions";
-import { invalid, seriesName, tooShort } from "./errors";
+import { invalid, tooShort } from "./errors";
+import { seriesName } from "./seriesName";
 import { requireValues } from "./options";
 import type { Series } from "./types";
 

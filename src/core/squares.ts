@@ -5,7 +5,8 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocorrelation";
 import { centre } from "./centre";
-import { invalid, seriesName } from "./errors";
+import { invalid } from "./errors";
+import { seriesName } from "./seriesName";
 import type { Series } from "./types";
 
 /**
