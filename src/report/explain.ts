@@ -11,6 +11,7 @@ import {
   formatNumber,
   pPhrase,
   seasonalLags,
+  seriesName,
   TEST_NAMES,
   type Headline,
   type LagTable,
@@ -206,7 +207,7 @@ export function explanationText(explanation: Explanation): string {
  */
 export function summaryText(table: LagTable, headline?: Headline): string {
   const badge = BADGES[headline?.word ?? table.verdict.word];
-  const name = table.label === "" ? "Series" : table.label;
+  const name = seriesName(table.label, "heading");
   const options = [
     `${table.maxLag} lags`,
     `alpha ${table.alpha}`,

@@ -5,7 +5,7 @@
  * `jointSpanText`: one row per span of lags. Figures are rounded for reading only; the JSON output
  * keeps full precision.
  */
-import { formatP, referencedPPhrase, type LagTable } from "../core";
+import { formatP, referencedPPhrase, seriesName, type LagTable } from "../core";
 import { jointTestName, rowZone, viewBandWords } from "./lagViews";
 import { ZONE_SHORT } from "./palette";
 import { paddedNumber, paddedP } from "./tableCells";
@@ -15,7 +15,7 @@ import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 export function lagTableText(table: LagTable): string {
   const badge = BADGES[table.verdict.word];
   const K = table.maxLag;
-  const name = table.label === "" ? "series" : table.label;
+  const name = seriesName(table.label, "cell");
   const lines: string[] = [];
   lines.push(
     `${name}: n = ${table.n}, gaps ${table.gaps}, mean ${table.mean.toPrecision(6)}, variance ${table.variance.toPrecision(6)}`,

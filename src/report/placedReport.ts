@@ -8,7 +8,7 @@
  *
  * Pure: no Office types. Rows and columns are 0-based offsets from A1 of the new sheet.
  */
-import { formatP, TEST_NAMES, type LagTable } from "../core";
+import { formatP, seriesName, TEST_NAMES, type LagTable } from "../core";
 import { cellAddress, columnLetters, rangeAddress } from "./a1Address";
 import { explainVerdict, type Explanation } from "./explain";
 import { LAG_TABLE_Z_COLUMN, lagTableHeader, lagTableValues } from "./lagTableHeader";
@@ -173,7 +173,7 @@ function buildPlan(
   const put = (row: number, column: number, content: PlanCellContent) =>
     cells.push({ row, column, content });
   const text = (row: number, column: number, value: string | number) => put(row, column, { value });
-  const name = table.label === "" ? "series" : table.label;
+  const name = seriesName(table.label, "cell");
 
   text(0, 0, kind === "live" ? `Echolot live report: ${name}` : `Echolot snapshot: ${name}`);
   text(1, 0, "Source");

@@ -4,7 +4,7 @@
  * columns and one row of helper formulas per data cell. Echolot's own figures are recorded
  * under the keys the cells carry, so a test can compare what a spreadsheet computes.
  */
-import { pairCounts, TEST_NAMES, type LagTable, type Series } from "../core";
+import { pairCounts, seriesName, TEST_NAMES, type LagTable, type Series } from "../core";
 import { absoluteCell, absoluteColumn, textLiteral } from "./portableFormulas";
 import { reasonFormula, standardErrorFormula, termFormula } from "./portableLagFormulas";
 import {
@@ -95,7 +95,7 @@ export function portableBlock(
   const helpColumn = (c: number) => absoluteColumn(origin.row + firstLagRow, origin.column + c, L);
   const src = absoluteColumn(source.firstRow, source.column, L, source.sheet);
   const srcCell = (i: number) => absoluteCell(source.firstRow + i, source.column, source.sheet);
-  const name = table.label === "" ? "series" : table.label;
+  const name = seriesName(table.label, "cell");
 
   // The header: what it is.
   text(ROW.title, 0, `Echolot portable report: ${name}`, "title");

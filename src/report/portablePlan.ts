@@ -20,7 +20,7 @@
  * The plan carries the figures Echolot computed (`figures`, keyed as the cells' `figure`), so a
  * test can read the cells back from a spreadsheet engine and compare. Pure: no Office, no files.
  */
-import type { LagTable, Series } from "../core";
+import { seriesName, type LagTable, type Series } from "../core";
 import { PALETTE } from "./palette";
 import { portableBlock } from "./portableBlock";
 import { blockWidths, COL, FIGURE_ROWS, PIN, PORTABLE_BLOCK_WIDTH, ROW } from "./portableLayout";
@@ -80,7 +80,7 @@ export function portablePlan(
   const chartTop = origin.row + ROW.figures;
   const tableEnd = first + K;
   const chart: PortableChart = {
-    title: `z by lag: ${table.label === "" ? "series" : table.label}`,
+    title: `z by lag: ${seriesName(table.label, "cell")}`,
     categories: column(COL.lag),
     series: series_,
     xTitle: "lag",
