@@ -7,6 +7,7 @@ import {
   auditBatch,
   batchCheck,
   isEcholotError,
+  seriesName,
   type AuditBatch,
   type LagOptions,
   type Series,
@@ -270,7 +271,7 @@ export class PaneController {
     const analysis = this.analysis;
     const headline = this.headlineShown();
     if (analysis === null || headline === null) return "";
-    const label = analysis.table.label === "" ? "Series" : analysis.table.label;
+    const label = seriesName(analysis.table.label, "heading");
     const item = this.rankedItem();
     const check = (this.ranking?.audit ?? null) === null ? "" : "forecast audit: ";
     const count = this.ranking?.list.items.length ?? 1;
