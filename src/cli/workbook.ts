@@ -15,6 +15,7 @@ import {
   cellReader,
   isEcholotError,
   lagTable,
+  seriesName,
   type Dialect,
   type LagOptions,
   type Series,
@@ -120,7 +121,7 @@ export async function readWorkbookData(
   const firstRow = reading.header ? 1 : 0;
   if (!batch) {
     const one = await readOneSeries(reading, textOption(values, "column"));
-    const label = one.series.label === "" ? `column ${one.column.index + 1}` : one.series.label;
+    const label = seriesName(one.series.label, "cell", { column: one.column.index });
     return {
       cells,
       firstRow,
@@ -131,7 +132,7 @@ export async function readWorkbookData(
   const many = await readManySeries(reading, values);
   const columns: WorkbookColumn[] = many.series.map((series, i) => {
     const column = many.columns?.[i]?.index ?? i;
-    const label = series.label === "" ? `column ${column + 1}` : series.label;
+    const label = seriesName(series.label, "cell", { column });
     return { label, column, analysis: { series } };
   });
   if (columns.length === 0) {
