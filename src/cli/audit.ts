@@ -57,7 +57,8 @@ export async function runAudit({ files, values }: ParsedCommand): Promise<string
     alpha: numberOption("alpha", values.alpha) ?? null,
     maxLag: numberOption("lags", values.lags) ?? null,
   };
-  const alpha = resolveAlpha(options.alpha);
+  // A bad alpha is refused here, once, not in each worker.
+  resolveAlpha(options.alpha);
   // Each series' audit in worker threads; the q-values across them once, here, in series order.
   const { many, results: entries } = await eachSeriesOf(
     file,
@@ -70,18 +71,16 @@ export async function runAudit({ files, values }: ParsedCommand): Promise<string
       `${file} has no series to audit: ${many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ")}`,
     );
   }
-  const result = auditBatchOf(entries, alpha);
+  const result = auditBatchOf(entries);
   const rows = {
     shown: selectRanked(rankedAuditItems(result), selection).length,
     total: result.items.length,
   };
   return deliverRanked(format, many, file, values, rows, {
     csv: () => auditCsv(result, selection),
-    json: () => auditJson(result, options, selection),
+    json: () => auditJson(result, selection),
     text: (leftOut) =>
       auditText(result, {
-        horizon,
-        season: options.season ?? null,
         selection,
         reasons: values.reasons === true,
         leftOut,

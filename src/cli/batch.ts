@@ -72,7 +72,7 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
   }
   let result;
   try {
-    result = batchOfResults(results);
+    result = batchOfResults(results, options);
   } catch (error) {
     const left = many.notAnalysed.map((n) => `${n.name} ${n.reason}`).join("; ");
     if (left !== "" && error instanceof Error) error.message += ` (not analysed: ${left})`;
@@ -88,9 +88,6 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
     json: () => batchJson(batch, selection),
     text: (leftOut) =>
       batchText(batch, {
-        maxLag: options.maxLag ?? null,
-        season: options.season ?? null,
-        testKind: options.testKind ?? "ljung-box",
         selection,
         reasons: values.reasons === true,
         leftOut,

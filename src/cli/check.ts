@@ -13,7 +13,7 @@ import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
 import { releaseBetweenSteps } from "./memory";
-import { headlineJson, JSON_VERSION, lagTableJson, sideChecksJson, toJsonText } from "./json";
+import { checkJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
   lagOptionsFromFlags,
@@ -46,13 +46,7 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
   const result = robust ?? plain;
   const headline = headlineOf(plain, robust, side.volatility, side.bias);
   return values.json === true
-    ? toJsonText({
-        version: JSON_VERSION,
-        source,
-        headline: headlineJson(headline),
-        ...lagTableJson(result),
-        ...sideChecksJson(side),
-      })
+    ? toJsonText(checkJson(source, headline, result, side))
     : `read: ${source}\n\n${headlineText(headline)}\n\n${lagTableText(result)}\n\n${jointSpanText(result)}\n\n${sideChecksText(side)}`;
 }
 

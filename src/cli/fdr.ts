@@ -135,11 +135,7 @@ export async function runFdr({ files, values }: ParsedCommand): Promise<string> 
       .join("\n");
     return deliver(lines, values, parts, said);
   }
-  const first = results[0] as SeriesResult;
   const text = batchText(batch, {
-    maxLag: null,
-    season: null,
-    testKind: first.test,
     selection,
     reasons: values.reasons === true,
   });

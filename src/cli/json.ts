@@ -232,6 +232,33 @@ export function levelFields(levels: VerdictLevels): LevelsJson {
   };
 }
 
+/**
+ * The whole `check --json` document, in the order written: `version`, `source` (what was read),
+ * the headline, the lag table's fields, then the side checks'.
+ */
+export type CheckJson = {
+  readonly version: number;
+  readonly source: string;
+  readonly headline: HeadlineJson;
+} & LagTableJson &
+  SideChecksJson;
+
+/** The `check --json` document of a lag table (the reading shown), its headline and side checks. */
+export function checkJson(
+  source: string,
+  headline: Headline,
+  table: LagTable,
+  side: SideChecks,
+): CheckJson {
+  return {
+    version: JSON_VERSION,
+    source,
+    headline: headlineJson(headline),
+    ...lagTableJson(table),
+    ...sideChecksJson(side),
+  };
+}
+
 /** JSON text with NaN and ±Infinity written as null. */
 export function toJsonText(document: unknown): string {
   return JSON.stringify(

@@ -11,7 +11,6 @@ import type {
   AuditBatchItem,
   BatchCheck,
   BatchRow,
-  ForecastAuditOptions,
   Headline,
   PReference,
   Reading,
@@ -87,6 +86,28 @@ export interface SelectionJson {
   readonly top: number | null;
   readonly keptOnly: boolean;
 }
+
+/** A column or id of the input not read as a series, and why. */
+export interface NotAnalysedJson {
+  readonly name: string;
+  readonly reason: string;
+}
+
+/**
+ * What `batch --json` and `audit --json` write around their document (rankedOutput.ts): `source`
+ * (what was read) after `version`, and last the columns or ids not read as series. `fdr --json`
+ * reads parts, not a file, and writes the document alone.
+ */
+export interface ReadJson {
+  readonly source: string;
+  readonly notAnalysed: readonly NotAnalysedJson[];
+}
+
+/** The whole `batch --json` document. */
+export type BatchDocumentJson = BatchJson & ReadJson;
+
+/** The whole `audit --json` document. */
+export type AuditDocumentJson = AuditJson & ReadJson;
 
 export interface BatchJson {
   readonly version: number;
@@ -278,16 +299,12 @@ function auditEntry({
   };
 }
 
-export function auditJson(
-  batch: AuditBatch,
-  options: ForecastAuditOptions,
-  selection: RankedSelection = ALL_RANKED,
-): AuditJson {
+export function auditJson(batch: AuditBatch, selection: RankedSelection = ALL_RANKED): AuditJson {
   const all = rankedAuditItems(batch);
   return {
     version: JSON_VERSION,
-    horizon: options.horizon,
-    season: options.season ?? null,
+    horizon: batch.horizon,
+    season: batch.season,
     alpha: batch.alpha,
     total: all.length,
     selection: { top: selection.top, keptOnly: selection.keptOnly },

@@ -6,10 +6,12 @@
  * (q ≤ alpha). The dependence p is the audit's Monte Carlo one (auditReference.ts), the bias p
  * the Harvey–Leybourne–Newbold t (horizonBias.ts). An item that cannot be audited (too few values, constant) keeps its place with
  * the reason and stays out of both families; when no item can be audited the first refusal is
- * thrown. Cost: one audit per series.
+ * thrown. The result carries the options its audits resolved (alpha, horizon, season) and the raw
+ * flags expected by chance (falseAlarms.ts). Cost: one audit per series.
  */
 import { batchLabel } from "./batch";
 import { invalid, isEcholotError } from "./errors";
+import { expectedFalseFlags } from "./falseAlarms";
 import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
 import { batchNote, lagWord, qPhrase } from "./batchHeadline";
 import { formatNumber, pPhrase } from "./format";
@@ -36,8 +38,15 @@ export interface AuditBatchItem {
 }
 
 export interface AuditBatch {
+  /** alpha, h and the season as every audit of the batch resolved them. */
   readonly alpha: number;
+  readonly horizon: number;
+  readonly season: number | null;
   readonly items: readonly AuditBatchItem[];
+  /** Items audited (the BH families). */
+  readonly analysed: number;
+  /** Raw dependence flags expected by chance if every forecast were sound: analysed·α. */
+  readonly expectedRawFlags: number;
   /** Dependence tests with p < alpha, and with q-value ≤ alpha. */
   readonly flaggedRaw: number;
   readonly flaggedFdr: number;
@@ -72,30 +81,48 @@ export function auditBatch(
   seriesList: readonly Series[],
   options: ForecastAuditOptions,
 ): AuditBatch {
-  const alpha = resolveAlpha(options.alpha);
+  // A bad alpha is refused once, before any audit.
+  resolveAlpha(options.alpha);
   const entries = seriesList.map((series, index) => auditEntry(series, index, options));
   // When no item can be audited, the first one's refusal is thrown as it was (its kind too).
   const first = seriesList[0];
   if (first !== undefined && entries.every((entry) => entry.audit === null)) {
     forecastAudit(first, options);
   }
-  return auditBatchOf(entries, alpha);
+  return auditBatchOf(entries);
+}
+
+/** The options the audits resolved, the same for every audit of one batch. */
+function sharedSettings(audits: readonly ForecastAudit[]): {
+  alpha: number;
+  horizon: number;
+  season: number | null;
+} {
+  const { alpha, horizon, season } = audits[0] as ForecastAudit;
+  for (const audit of audits) {
+    if (audit.alpha !== alpha || audit.horizon !== horizon || audit.season !== season) {
+      throw new Error("the audits of one batch must share alpha, horizon and season");
+    }
+  }
+  return { alpha, horizon, season };
 }
 
 /**
  * The cross-item step over the entries, in their order: q-values of the dependence and the bias
- * tests across the items audited, and the counts. When no entry was audited, it refuses with the
- * first one's reason.
+ * tests across the items audited, and the counts, at the alpha the audits resolved. When no entry
+ * was audited, it refuses with the first one's reason.
  */
-export function auditBatchOf(entries: readonly AuditBatchEntry[], alpha: number): AuditBatch {
-  if (entries.every((entry) => entry.audit === null)) {
+export function auditBatchOf(entries: readonly AuditBatchEntry[]): AuditBatch {
+  const audits = entries.flatMap((entry) => (entry.audit === null ? [] : [entry.audit]));
+  if (audits.length === 0) {
     invalid(entries[0]?.problem ?? "there are no series to audit");
   }
+  const { alpha, horizon, season } = sharedSettings(audits);
   const dependenceP = entries.map((item) => item.audit?.levels.jointP.p ?? NaN);
   const biasP = entries.map((item) => item.audit?.bias.p ?? NaN);
   const dependenceQ = benjaminiHochberg(dependenceP);
   const biasQ = benjaminiHochberg(biasP);
-  const analysed = entries.filter((item) => item.audit !== null).length;
+  const analysed = audits.length;
   const items = entries.map((item, i) => {
     const dependenceQValue = dependenceQ[i] as number;
     const biasQValue = biasQ[i] as number;
@@ -106,7 +133,11 @@ export function auditBatchOf(entries: readonly AuditBatchEntry[], alpha: number)
     Array.from(values).filter(pass).length;
   return {
     alpha,
+    horizon,
+    season,
     items,
+    analysed,
+    expectedRawFlags: expectedFalseFlags(analysed, alpha),
     flaggedRaw: count(dependenceP, (p) => p < alpha),
     flaggedFdr: count(dependenceQ, (q) => q <= alpha),
     biasFlaggedRaw: count(biasP, (p) => p < alpha),

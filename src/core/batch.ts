@@ -7,12 +7,14 @@
  * five-percent false alarms of 200 separate tests.
  *
  * - `flaggedRaw`: series whose structure p is below alpha (what 200 separate checks would flag;
- *   among pure-noise series about alpha of them);
+ *   among pure-noise series about alpha of them: `expectedRawFlags`, falseAlarms.ts);
  * - `flaggedFdr`: series whose q-value is at most alpha (the BH step-up rule), which keeps the
  *   expected share of false flags among the flagged at most alpha for independent series.
  * Each series also gets the volatility check (its joint p then comes from the robust reading,
  * headline.ts) and the bias check, whose p-values get their own Benjamini–Hochberg step; the word
  * shown per series respects both steps (batchHeadline.ts).
+ * The result carries the options its series share as resolved (alpha, the joint test, the lags and
+ * season asked for), so a view reads them from it rather than from the request.
  * A series that cannot be analysed (too few values, constant) keeps its row with the reason and
  * NaN figures, and stays out of the family of p-values; when no series can be analysed, the first
  * refusal is thrown instead. Cost per series: one noise check (the lag table's verdict, without
@@ -23,10 +25,11 @@ import { invalid } from "./errors";
 import { analyseSeries, type SeriesResult } from "./batchParts";
 import { batchRowHeadline } from "./batchHeadline";
 import type { Headline, Reading } from "./headline";
+import { expectedFalseFlags } from "./falseAlarms";
 import { benjaminiHochberg } from "./multiplicity";
-import { resolveAlpha, type LagOptions } from "./options";
+import { parseTestKind, resolveAlpha, type LagOptions } from "./options";
 import { seriesName } from "./seriesName";
-import type { Series, VerdictWord } from "./types";
+import type { Series, TestKind, VerdictWord } from "./types";
 import type { ReferencedP } from "./verdictReference";
 
 export interface BatchRow {
@@ -67,8 +70,18 @@ export interface BatchRow {
   readonly headline: Headline | null;
 }
 
-export interface BatchCheck {
+/** The options every series of a batch shares, as resolved. */
+export interface BatchSettings {
   readonly alpha: number;
+  /** The joint test chosen (a series switched to the robust reading uses the robust test). */
+  readonly testKind: TestKind;
+  /** The lags asked for; null: each series' default (it depends on n), or not recorded (a merge of parts). */
+  readonly maxLag: number | null;
+  /** The season asked for; null: none, or not recorded (a merge of parts). */
+  readonly season: number | null;
+}
+
+export interface BatchCheck extends BatchSettings {
   /** One row per series, in the order given. */
   readonly rows: readonly BatchRow[];
   /** Series with p < alpha. */
@@ -77,6 +90,8 @@ export interface BatchCheck {
   readonly flaggedFdr: number;
   /** Series with a p-value (the BH family). */
   readonly analysed: number;
+  /** Raw flags expected by chance if every series analysed were noise: analysed·α (falseAlarms.ts). */
+  readonly expectedRawFlags: number;
   /** Series whose bias p < alpha, and whose bias q-value ≤ alpha. */
   readonly biasFlaggedRaw: number;
   readonly biasFlaggedFdr: number;
@@ -94,6 +109,7 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
     );
   }
   const alpha = resolveAlpha(options.alpha);
+  const testKind = parseTestKind(options.testKind);
   let firstRefusal: unknown;
   const results = seriesList.map((series, index) => {
     const { result, refusal } = analyseSeries(series, index, options);
@@ -102,14 +118,23 @@ export function batchCheck(seriesList: readonly Series[], options: LagOptions = 
   });
   // When no series at all can be analysed the options themselves are at fault: say so once.
   if (results.every((r) => r.verdict === null)) throw firstRefusal;
-  return combineResults(results, alpha);
+  return combineResults(results, { alpha, testKind, ...askedLags(options) });
+}
+
+/** The lags and season as asked for, null when not given (each series then resolves its own). */
+export function askedLags(options: LagOptions): Pick<BatchSettings, "maxLag" | "season"> {
+  return { maxLag: options.maxLag ?? null, season: options.season ?? null };
 }
 
 /**
  * The cross-series step, shared by the whole batch and the merge of its parts: Benjamini–Hochberg
  * q-values of the joint p and of the bias p, then each row's headline, in the order given.
  */
-export function combineResults(results: readonly SeriesResult[], alpha: number): BatchCheck {
+export function combineResults(
+  results: readonly SeriesResult[],
+  settings: BatchSettings,
+): BatchCheck {
+  const { alpha } = settings;
   const pOf = (r: SeriesResult) => r.p ?? NaN;
   const biasPOf = (r: SeriesResult) => r.bias?.p ?? NaN;
   const qValues = benjaminiHochberg(results.map(pOf));
@@ -152,7 +177,19 @@ export function combineResults(results: readonly SeriesResult[], alpha: number):
     if (row.biasP < alpha) biasFlaggedRaw++;
     if (row.biasQValue <= alpha) biasFlaggedFdr++;
   }
-  return { alpha, rows, flaggedRaw, flaggedFdr, analysed, biasFlaggedRaw, biasFlaggedFdr };
+  return {
+    alpha,
+    testKind: settings.testKind,
+    maxLag: settings.maxLag,
+    season: settings.season,
+    rows,
+    flaggedRaw,
+    flaggedFdr,
+    analysed,
+    expectedRawFlags: expectedFalseFlags(analysed, alpha),
+    biasFlaggedRaw,
+    biasFlaggedFdr,
+  };
 }
 
 /**

@@ -9,7 +9,7 @@
  * The merged rows are ordered by id (code-unit order), so the merge does not depend on how the
  * series were split or in which order the parts arrive.
  */
-import { batchLabel, combineResults, type BatchCheck, type BatchRow } from "./batch";
+import { askedLags, batchLabel, combineResults, type BatchCheck, type BatchRow } from "./batch";
 import { biasCheck } from "./bias";
 import { isPValueBound } from "./distributions";
 import { invalid, isEcholotError, type EcholotError } from "./errors";
@@ -178,16 +178,27 @@ export function mergeSeriesResults(results: readonly SeriesResult[]): BatchCheck
     ids.add(r.id);
   }
   const sorted = results.slice().sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  return combineResults(sorted, first.alpha);
+  // A part's lines do not record the lags and season asked for.
+  return combineResults(sorted, {
+    alpha: first.alpha,
+    testKind: first.test,
+    maxLag: null,
+    season: null,
+  });
 }
 
 /**
  * The whole batch from its series' results in the order given (the same figures as `batchCheck`
  * on the same series, row for row): the step that runs once, on one thread, after the per-series
  * stage ran anywhere (the CLI's worker threads). As `batchCheck`, it needs two series at least,
- * and when no series could be analysed it refuses with the first one's reason.
+ * and when no series could be analysed it refuses with the first one's reason. `options` are the
+ * ones the results were computed with: the result records the lags and season asked for (alpha
+ * and the joint test come from the results themselves).
  */
-export function batchOfResults(results: readonly SeriesResult[]): BatchCheck {
+export function batchOfResults(
+  results: readonly SeriesResult[],
+  options: LagOptions = {},
+): BatchCheck {
   if (results.length < 2) {
     invalid(
       `a batch check needs at least 2 series (one per column); got ${results.length}: for a single series use the noise check`,
@@ -195,5 +206,9 @@ export function batchOfResults(results: readonly SeriesResult[]): BatchCheck {
   }
   const first = results[0] as SeriesResult;
   if (results.every((r) => r.verdict === null)) invalid(first.reason);
-  return combineResults(results, first.alpha);
+  return combineResults(results, {
+    alpha: first.alpha,
+    testKind: first.test,
+    ...askedLags(options),
+  });
 }

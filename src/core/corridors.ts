@@ -7,6 +7,9 @@
  * z is the standard normal quantile (distributions.ts). Both comparisons are strict, so a NaN z
  * (a lag with no pairs) crosses neither and is not counted as tested. Cost O(1) for the levels,
  * O(K) for the crossings.
+ *
+ * A value's zone names the same comparisons in one word: `beyond` past the outer corridor,
+ * `between` past the inner one only, `inside` otherwise, and `none` for a NaN z.
  */
 import { normalQuantile } from "./distributions";
 import { sidakLevel } from "./multiplicity";
@@ -28,6 +31,21 @@ export function corridorLevels(alpha: number, lags: number): CorridorLevels {
     innerLevel: normalQuantile(1 - alpha / 2),
     outerLevel: normalQuantile(1 - sidakLevel(alpha, lags) / 2),
   };
+}
+
+/** Where a standardised value lies against the two corridors; "none" when z is NaN. */
+export type CorridorZone = "inside" | "between" | "beyond" | "none";
+
+/**
+ * The zone of z: the strict comparisons of `corridorCrossings` (|z| > outer, then |z| > inner),
+ * so a z exactly on a corridor's edge stays inside it.
+ */
+export function corridorZone(z: number, levels: CorridorLevels): CorridorZone {
+  if (Number.isNaN(z)) return "none";
+  const size = Math.abs(z);
+  if (size > levels.outerLevel) return "beyond";
+  if (size > levels.innerLevel) return "between";
+  return "inside";
 }
 
 export interface CorridorCrossings {

@@ -6,6 +6,11 @@
  * Binomial(K, α): expected K·α crossings, and the chance of m or more is
  * Σ_{j≥m} C(K,j) α^j (1−α)^{K−j}, computed directly as an upper tail (distributions.ts).
  * This is approximate: the independence holds only asymptotically.
+ *
+ * The same count·α is the number of raw flags expected by chance when many series (a batch, an
+ * audit) are each tested at level α and every one is noise: each null p falls below α with
+ * probability α, and expectations add whether or not the tests are independent (linearity of
+ * expectation, by definition).
  */
 import { binomialUpperTail } from "./distributions";
 
@@ -22,6 +27,16 @@ export interface FalseAlarmNote {
   readonly chance: number;
 }
 
+/**
+ * Flags expected by chance among `count` tests at level α, all of them under the null: count·α.
+ *
+ * @example
+ * expectedFalseFlags(150, 0.05); // ≈ 7.5
+ */
+export function expectedFalseFlags(count: number, alpha: number): number {
+  return count * alpha;
+}
+
 export function falseAlarmNote(
   tested: number,
   alpha: number,
@@ -29,7 +44,7 @@ export function falseAlarmNote(
 ): FalseAlarmNote {
   return {
     tested,
-    expected: tested * alpha,
+    expected: expectedFalseFlags(tested, alpha),
     crossings: crossingLags.length,
     crossingLags,
     chance: binomialUpperTail(crossingLags.length, tested, alpha),

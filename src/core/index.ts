@@ -21,6 +21,8 @@ export * from "./options";
 export * from "./format";
 export * from "./verdict";
 export * from "./squares";
+export { corridorZone, type CorridorZone } from "./corridors";
+export * from "./sampleCautions";
 export * from "./lagTable";
 export * from "./leastSquares";
 export * from "./volatility";

@@ -2,18 +2,25 @@
  * The lag table: everything Echolot reports about one series, computed once and shared by the
  * cell functions, the pane and the CLI — autocorrelation, partial autocorrelation, standard errors
  * and bands of the chosen kind, per-lag z and p (own and Šidák-adjusted), the cumulative joint
- * test, the false-alarm note and the verdict. Each formula lives in its own file; this file only
- * assembles. Cost O(n·K) plus O(K²) for the partials. `noiseCheck` gives the same verdict from
- * the same steps without the per-lag table.
+ * test, the false-alarm note, the verdict and the cautions on the sample's size; each lag's zone
+ * against the two corridors, for its autocorrelation and its partial. Each formula and each
+ * decision lives in its own file; this file only assembles. Cost O(n·K) plus O(K²) for the
+ * partials. `noiseCheck` gives the same verdict from the same steps without the per-lag table.
  */
 import { autocorrelation, type Autocorrelation } from "./autocorrelation";
 import { robustVariances, standardErrors } from "./bands";
-import { corridorCrossings, innerCorridor, largestZ } from "./corridors";
+import {
+  corridorCrossings,
+  corridorZone,
+  innerCorridor,
+  largestZ,
+  type CorridorZone,
+} from "./corridors";
 import { normalTwoSided } from "./distributions";
 import { falseAlarmNote, type FalseAlarmNote } from "./falseAlarms";
 import { sidakAdjust } from "./multiplicity";
 import { resolveLagOptions, type LagOptions, type ResolvedLagOptions } from "./options";
-import { partialAutocorrelation } from "./partial";
+import { partialAutocorrelation, partialZ } from "./partial";
 import {
   cumulativeJointTest,
   type CumulativeJointTest,
@@ -23,6 +30,7 @@ import {
   type JointTestInput,
 } from "./portmanteau";
 import { centre, type Centred } from "./centre";
+import { sampleCautions, type SampleCautions } from "./sampleCautions";
 import { squaredDeviationCorrelation } from "./squares";
 import type { Series } from "./types";
 import { untestedSeasonalLags } from "./defaultLags";
@@ -34,6 +42,10 @@ export interface LagRow {
   readonly lag: number;
   readonly correlation: number;
   readonly partial: number;
+  /** The partial's z = φ_kk·√n (se 1/√n whatever the band kind: partial.ts). */
+  readonly partialZ: number;
+  /** Where `partialZ` lies against the two corridors (corridors.ts). */
+  readonly partialZone: CorridorZone;
   /** se_k under the chosen band kind. */
   readonly standardError: number;
   /** Band half-width z_{1−α/2}·se_k. */
@@ -48,10 +60,14 @@ export interface LagRow {
   readonly crossesBand: boolean;
   /** |z_k| beyond the outer corridor (Šidák over K lags). */
   readonly outer: boolean;
+  /** Where z_k lies: `beyond` when `outer`, `between` when only `beyond`, else `inside`; NaN z: `none`. */
+  readonly zone: CorridorZone;
   /** Joint test over lags 1..k. */
   readonly jointQ: number;
   readonly jointDf: number;
   readonly jointP: number;
+  /** jointP < alpha: the joint test over lags 1..k rejects at the request's alpha (χ² scale). */
+  readonly jointBelowAlpha: boolean;
 }
 
 /** What the lag rows describe: the series, or its squared deviations (testKind "squares"). */
@@ -83,8 +99,15 @@ export interface LagTable extends ResolvedLagOptions {
   readonly levels: SeriesLevels;
   readonly rows: readonly LagRow[];
   readonly joint: JointTest;
+  /**
+   * joint.p < alpha: the joint test over all K lags rejects at the request's alpha on the
+   * textbook χ² scale (for the squares' table: McLeod–Li finds volatility clustering).
+   */
+  readonly jointBelowAlpha: boolean;
   readonly falseAlarm: FalseAlarmNote;
   readonly verdict: Verdict;
+  /** The small-sample and many-lags cautions (sampleCautions.ts). */
+  readonly cautions: SampleCautions;
 }
 
 /** The verdict of one series and what it rests on: the noise check, without the per-lag table. */
@@ -252,16 +275,22 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
   const { maxLag: K, alpha, season, fittedParams, bandKind, testKind } = s.resolved;
   const { ac, level, se, innerLevel, joint } = s;
   const outerLevel = s.levels.outerLevel;
+  const corridors = { innerLevel, outerLevel };
   const partials = partialAutocorrelation(ac.correlation);
   const rows: LagRow[] = [];
   for (let k = 1; k <= K; k++) {
     const { correlation, z, crossesBand, outer } = s.lags[k - 1] as VerdictLag;
     const standardError = se[k - 1] as number;
     const pLag = normalTwoSided(z);
+    const partial = partials[k - 1] as number;
+    const pz = partialZ(partial, ac.n);
+    const jointP = cumulative.p[k - 1] as number;
     rows.push({
       lag: k,
       correlation,
-      partial: partials[k - 1] as number,
+      partial,
+      partialZ: pz,
+      partialZone: corridorZone(pz, corridors),
       standardError,
       band: innerLevel * standardError,
       z,
@@ -269,9 +298,12 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
       pSidak: sidakAdjust(pLag, K),
       crossesBand,
       outer,
+      // Every lag of the table is counted, so the zone's comparisons are `beyond` and `outer`.
+      zone: corridorZone(z, corridors),
       jointQ: cumulative.q[k - 1] as number,
       jointDf: cumulative.df[k - 1] as number,
-      jointP: cumulative.p[k - 1] as number,
+      jointP,
+      jointBelowAlpha: jointP < alpha,
     });
   }
   const { falseAlarm, verdict } = conclude(s);
@@ -297,8 +329,10 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
     levels: s.levels,
     rows,
     joint,
+    jointBelowAlpha: joint.p < alpha,
     falseAlarm,
     verdict,
+    cautions: sampleCautions(ac.n, K, verdict.word),
   };
 }
 

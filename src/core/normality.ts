@@ -4,15 +4,20 @@
  *   S = m₃ / m₂^{3/2},   K = m₄ / m₂²,   JB = (n/6)(S² + (K − 3)²/4),
  * referred to χ²₂, whose upper tail is exactly e^{−JB/2}. The order of the values does not matter,
  * so gaps are simply absent values. Moments from the two-pass deviations (centre.ts) with
- * compensated sums. Cost O(n).
+ * compensated sums. The check flags at the request's alpha when p < alpha. Cost O(n).
  */
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
 import { invalid } from "./errors";
+import { requireValues, resolveAlpha } from "./options";
 import { seriesName } from "./seriesName";
-import { requireValues } from "./options";
 import { CompensatedSum } from "./sums";
 import type { Series } from "./types";
+
+export interface NormalityOptions {
+  /** Level at which `flagged` is set; default 0.05. */
+  readonly alpha?: number | null;
+}
 
 export interface NormalityCheck {
   readonly label: string;
@@ -23,10 +28,14 @@ export interface NormalityCheck {
   readonly kurtosis: number;
   readonly jb: number;
   readonly p: number;
+  readonly alpha: number;
+  /** The values depart from normality at alpha: p < alpha. */
+  readonly flagged: boolean;
 }
 
-export function normalityCheck(series: Series): NormalityCheck {
+export function normalityCheck(series: Series, options: NormalityOptions = {}): NormalityCheck {
   requireValues(series, 3, "the Jarque–Bera test");
+  const alpha = resolveAlpha(options.alpha);
   const { n, deviations, sumSquares } = centre(series);
   if (!(sumSquares > 0)) {
     invalid(`${seriesName(series.label)} is constant: its skewness and kurtosis are undefined`);
@@ -43,5 +52,6 @@ export function normalityCheck(series: Series): NormalityCheck {
   const skewness = third.value / n / Math.pow(m2, 1.5);
   const kurtosis = fourth.value / n / (m2 * m2);
   const jb = (n / 6) * (skewness * skewness + (kurtosis - 3) ** 2 / 4);
-  return { label: series.label, n, skewness, kurtosis, jb, p: chiSquareUpperTail(jb, 2) };
+  const p = chiSquareUpperTail(jb, 2);
+  return { label: series.label, n, skewness, kurtosis, jb, p, alpha, flagged: p < alpha };
 }

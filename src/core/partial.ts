@@ -36,3 +36,16 @@ export function partialAutocorrelation(correlation: ArrayLike<number>): Float64A
   }
   return partials;
 }
+
+/**
+ * The standardised partial autocorrelation z = φ̂_kk·√n. Under white noise the sample partials
+ * have standard error 1/√n at every lag k ≥ 1, whatever band kind the autocorrelations use
+ * (Quenouille 1949, JRSS B 11:68–84), so their z is measured against the same two corridors as
+ * the autocorrelations' (corridors.ts). A NaN partial gives a NaN z.
+ *
+ * @example
+ * partialZ(0.25, 64); // → 2
+ */
+export function partialZ(partial: number, n: number): number {
+  return partial * Math.sqrt(n);
+}

@@ -8,12 +8,12 @@
  *   Z = (R − R̄)/s_R, two-sided p from the standard normal (the large-sample reference).
  * Values equal to the median belong to neither side and are left out (common practice (no
  * source)). Runs follow the values present in time order: a gap neither ends nor starts a run.
- * Cost O(n log n) for the median.
+ * The check flags at the request's alpha when p < alpha. Cost O(n log n) for the median.
  */
 import { normalTwoSided } from "./distributions";
 import { invalid, tooShort } from "./errors";
+import { requireValues, resolveAlpha } from "./options";
 import { seriesName } from "./seriesName";
-import { requireValues } from "./options";
 import type { Series } from "./types";
 
 export interface RunsCount {
@@ -28,11 +28,19 @@ export interface RunsCount {
   readonly p: number;
 }
 
+export interface RunsOptions {
+  /** Level at which `flagged` is set; default 0.05. */
+  readonly alpha?: number | null;
+}
+
 export interface RunsCheck extends RunsCount {
   readonly label: string;
   /** Values present. */
   readonly n: number;
   readonly median: number;
+  readonly alpha: number;
+  /** Too few or too many runs at alpha: p < alpha. */
+  readonly flagged: boolean;
 }
 
 /**
@@ -80,8 +88,9 @@ function medianOf(series: Series): number {
     : ((sorted[middle - 1] as number) + (sorted[middle] as number)) / 2;
 }
 
-export function runsCheck(series: Series): RunsCheck {
+export function runsCheck(series: Series, options: RunsOptions = {}): RunsCheck {
   requireValues(series, 3, "a runs test");
+  const alpha = resolveAlpha(options.alpha);
   const { values, present } = series;
   const median = medianOf(series);
   // One byte a value: 1 above the median, 0 below; values equal to it are left out.
@@ -97,5 +106,13 @@ export function runsCheck(series: Series): RunsCheck {
       `${seriesName(series.label)} has values on only one side of its median ${median} (the others equal it), so its runs cannot be counted`,
     );
   }
-  return { label: series.label, n: series.count, median, ...runsTest(sides) };
+  const count = runsTest(sides);
+  return {
+    label: series.label,
+    n: series.count,
+    median,
+    ...count,
+    alpha,
+    flagged: count.p < alpha,
+  };
 }

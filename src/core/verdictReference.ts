@@ -57,7 +57,13 @@ import {
 } from "./distributions";
 import { lagStatistics, lagStatisticsWork, type LagStatisticsSpec } from "./lagStatistics";
 import { sidakAdjust, sidakLevel } from "./multiplicity";
-import { countAtLeast, kthLargestOfRest, kthSmallest, upperCountsSorted } from "./ranks";
+import {
+  countAtLeast,
+  kthLargestOfRest,
+  kthSmallest,
+  sortAscending,
+  upperCountsSorted,
+} from "./ranks";
 import { type DrawStream, SeedHash } from "./seededDraws";
 
 export type ReferenceKind = "permutation" | "normal-limit" | "monte-carlo";
@@ -305,7 +311,7 @@ export function commonLevel(
   const size = (columns[0] as Float64Array).length;
   const s = new Float64Array(size).fill(Infinity);
   // Each column sorted once, for its ranks and for its critical value.
-  const sorted = columns.map((column) => column.slice().sort());
+  const sorted = columns.map((column) => sortAscending(column.slice()));
   columns.forEach((column, c) => {
     const counts = upperCountsSorted(column, sorted[c] as Float64Array);
     for (let b = 0; b < size; b++) s[b] = Math.min(s[b] as number, counts[b] as number);

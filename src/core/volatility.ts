@@ -121,7 +121,8 @@ function engleRegression(
       `Engle's LM test with ${q} lag${q === 1 ? "" : "s"} needs at least ${columns + 1} rows with the value and its ${q} predecessors present; the series has ${rows}: use fewer lags`,
     );
   }
-  const capacity = columns + BLOCK_ROWS;
+  // No block is taller than the usable rows: a short series allocates for its own rows only.
+  const capacity = columns + Math.min(BLOCK_ROWS, rows);
   const design = new Float64Array(capacity * columns);
   const response = new Float64Array(capacity);
   let triangle: Float64Array | undefined;

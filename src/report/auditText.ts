@@ -14,9 +14,8 @@ import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from ".
 import { paddedP } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
+/** How to show the audit; its horizon, season and alpha are the batch's own (core/auditBatch.ts). */
 export interface AuditTextContext {
-  readonly horizon: number;
-  readonly season: number | null;
   /** Which ranked rows to show (all when absent). */
   readonly selection?: RankedSelection;
   /** Print each shown series' reason under the table. */
@@ -59,9 +58,8 @@ function expectedLags(audit: ForecastAudit, horizon: number): string {
   return ` Lags 1–${horizon - 1} are expected to be non-zero for ${horizon}-step errors and are not counted; their autocorrelations: ${r.join(", ")}.`;
 }
 
-export function auditText(batch: AuditBatch, context: AuditTextContext): string {
-  const { alpha } = batch;
-  const { horizon, season } = context;
+export function auditText(batch: AuditBatch, context: AuditTextContext = {}): string {
+  const { alpha, horizon, season, analysed } = batch;
   const selection = context.selection ?? ALL_RANKED;
   const all = rankedAuditItems(batch);
   const shown = selectRanked(all, selection);
@@ -98,7 +96,6 @@ export function auditText(batch: AuditBatch, context: AuditTextContext): string 
   lines.push("");
   const cols = columns(batch);
   const nWidth = cols[0]?.width ?? 4;
-  const analysed = audits.length;
   appendLines(
     lines,
     rankedBodyLines({
@@ -115,7 +112,7 @@ export function auditText(batch: AuditBatch, context: AuditTextContext): string 
       ),
       headerLines: 2,
       counts: [
-        `dependence: raw p < ${alpha} flags ${batch.flaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.flaggedFdr} (about ${formatNumber(analysed * alpha, 2)} raw flags expected by chance if every forecast were sound).`,
+        `dependence: raw p < ${alpha} flags ${batch.flaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.flaggedFdr} (about ${formatNumber(batch.expectedRawFlags, 2)} raw flags expected by chance if every forecast were sound).`,
         `bias: raw p < ${alpha} flags ${batch.biasFlaggedRaw} of ${analysed}; false-discovery rate ${alpha} keeps ${batch.biasFlaggedFdr} (marked "biased").`,
         `Only kept items are called structure or biased; a finding the false-discovery step does not keep is at most watch.`,
       ],

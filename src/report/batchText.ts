@@ -7,24 +7,15 @@
  * shown series' finding when asked (`reasons`). The joint test's statistic is in --json and
  * --csv (`statistic`).
  */
-import {
-  formatLevel,
-  formatNumber,
-  TEST_NAMES,
-  type BatchCheck,
-  type BatchRow,
-  type TestKind,
-} from "../core";
+import { formatLevel, formatNumber, TEST_NAMES, type BatchCheck, type BatchRow } from "../core";
 import { ALL_RANKED, rankedBatchRows, selectRanked, type RankedSelection } from "./batchOrder";
 import { headlineCell, rankedBodyLines } from "./rankedFooter";
 import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
 import { paddedP } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
+/** How to show the batch; the options it was checked with are the batch's own (core/batch.ts). */
 export interface BatchTextContext {
-  readonly maxLag: number | null;
-  readonly season: number | null;
-  readonly testKind: TestKind;
   /** Which ranked rows to show (all when absent). */
   readonly selection?: RankedSelection;
   /** Print each shown series' reason under the table. */
@@ -53,21 +44,21 @@ function columns(batch: BatchCheck): TextColumn<BatchRow>[] {
   ];
 }
 
-export function batchText(batch: BatchCheck, context: BatchTextContext): string {
+export function batchText(batch: BatchCheck, context: BatchTextContext = {}): string {
   const { alpha } = batch;
   const selection = context.selection ?? ALL_RANKED;
   const all = rankedBatchRows(batch);
   const shown = selectRanked(all, selection);
   const lines: string[] = [];
-  const lags = context.maxLag === null ? "the default lags" : `${context.maxLag} lags`;
+  const lags = batch.maxLag === null ? "the default lags" : `${batch.maxLag} lags`;
   appendLines(
     lines,
     wrapText(
-      `batch: ${batch.rows.length} series; ${TEST_NAMES[context.testKind]} over ${lags}${context.season === null ? "" : `, season ${context.season}`}; alpha ${alpha}. Lag structure: p of the joint test and the largest lag as one test, and its q-value across the series; bias: the q-value of the mean's test. Ranked: kept findings first, then watch, clear, short; within each by q-value, ties by p, then file order.`,
+      `batch: ${batch.rows.length} series; ${TEST_NAMES[batch.testKind]} over ${lags}${batch.season === null ? "" : `, season ${batch.season}`}; alpha ${alpha}. Lag structure: p of the joint test and the largest lag as one test, and its q-value across the series; bias: the q-value of the mean's test. Ranked: kept findings first, then watch, clear, short; within each by q-value, ties by p, then file order.`,
     ),
   );
   lines.push("");
-  const expected = formatNumber(batch.analysed * alpha, 2);
+  const expected = formatNumber(batch.expectedRawFlags, 2);
   const nWidth = columns(batch)[0]?.width ?? 4;
   appendLines(
     lines,

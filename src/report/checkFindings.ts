@@ -1,8 +1,8 @@
 /**
  * One-sentence findings of the side checks — volatility (Engle's LM with McLeod–Li), bias
  * (Newey–West), runs about the median, Jarque–Bera — worded for the pane's explanation, the CLI's
- * text and summaries. Each returns whether it flags at its alpha and the sentence; the figures come
- * from the core, this file only words them.
+ * text and summaries. Each returns whether the check flagged (decided in the core at the check's
+ * alpha) and the sentence; the figures come from the core, this file only words them.
  */
 import {
   formatLevel,
@@ -42,9 +42,9 @@ export function biasFinding(check: BiasCheck): CheckFinding {
     : { flagged: false, text: `No bias found at ${formatLevel(check.alpha)} (${figures}).` };
 }
 
-export function runsFinding(check: RunsCheck, alpha = 0.05): CheckFinding {
+export function runsFinding(check: RunsCheck): CheckFinding {
   const figures = `${check.runs} runs about the median ${formatNumber(check.median, 4)}, ${formatNumber(check.expected, 4)} expected, z = ${formatNumber(check.z, 3)}, ${pPhrase(check.p)}`;
-  if (!(check.p < alpha)) return { flagged: false, text: `Runs as expected (${figures}).` };
+  if (!check.flagged) return { flagged: false, text: `Runs as expected (${figures}).` };
   const how =
     check.runs < check.expected
       ? "too few runs: the series stays on one side of its median for long stretches"
@@ -52,9 +52,9 @@ export function runsFinding(check: RunsCheck, alpha = 0.05): CheckFinding {
   return { flagged: true, text: `Wald–Wolfowitz runs test: ${how} (${figures}).` };
 }
 
-export function normalityFinding(check: NormalityCheck, alpha = 0.05): CheckFinding {
+export function normalityFinding(check: NormalityCheck): CheckFinding {
   const figures = `Jarque–Bera = ${formatNumber(check.jb, 4)}, skewness ${formatNumber(check.skewness, 3)}, kurtosis ${formatNumber(check.kurtosis, 3)}, ${pPhrase(check.p)}`;
-  return check.p < alpha
+  return check.flagged
     ? {
         flagged: true,
         text: `The values are not normal (${figures}): intervals that assume normal errors are off, though the lag tests do not need normality.`,

@@ -2,8 +2,8 @@
  * The verdict explained, as structured text the pane, the HTML report and the summary all show:
  * the verdict and its reason, the false-alarm note with its numbers, then the cautions that apply
  * — seasonality, gaps, a small sample, volatility clustering, bias — and always the screening
- * caution. Every figure comes from the core's lag table (or the optional extra checks); this file
- * only words them.
+ * caution. Every figure and every decision comes from the core's lag table (its cautions, its
+ * joint test at alpha) or the optional extra checks; this file only words them.
  */
 import {
   falseAlarmSentence,
@@ -78,9 +78,6 @@ export interface ExplainContext {
   /** Bias finding (mean error with a HAC standard error), shown when it flags. */
   readonly bias?: SideFinding;
 }
-
-/** Below this many values the bands are wide and a clear verdict has little power. Common practice (no source). */
-export const SMALL_SAMPLE = 50;
 
 export function explainVerdict(table: LagTable, context: ExplainContext = {}): Explanation {
   const { verdict, falseAlarm, alpha } = table;
@@ -168,14 +165,15 @@ function gapsText(table: LagTable): string {
 
 function smallSampleText(table: LagTable): string | undefined {
   const parts: string[] = [];
-  if (table.n < SMALL_SAMPLE) {
+  const { smallSample, manyLags, manyLagsLimit } = table.cautions;
+  if (smallSample) {
     parts.push(
       `Only ${table.n} values: the bands are wide, so a clear verdict has little power to find weak structure.`,
     );
   }
-  if (table.maxLag > table.n / 5 && table.verdict.word !== "short") {
+  if (manyLags) {
     parts.push(
-      `${table.maxLag} lags is more than n/5 = ${formatNumber(table.n / 5, 3)}: the joint test over-rejects a little with many lags and few values.`,
+      `${table.maxLag} lags is more than n/5 = ${formatNumber(manyLagsLimit, 3)}: the joint test over-rejects a little with many lags and few values.`,
     );
   }
   return parts.length === 0 ? undefined : parts.join(" ");
@@ -189,7 +187,7 @@ function volatilityText(table: LagTable, context: ExplainContext): string | unde
     return robust ? `${context.volatility.text} ${allowed}` : context.volatility.text;
   }
   const squares = context.squares;
-  if (squares === undefined || !(squares.joint.p < squares.alpha)) return undefined;
+  if (squares === undefined || !squares.jointBelowAlpha) return undefined;
   const figures = `${TEST_NAMES.squares}, Q = ${formatNumber(squares.joint.q, 4)}, df ${squares.joint.df}, ${pPhrase(squares.joint.p)}`;
   return robust
     ? `The squared deviations are correlated (${figures}): volatility clusters. ${allowed}`

@@ -7,8 +7,8 @@
  * −log10 alpha when alpha is smaller still) — darker, never lighter, so every filled cell keeps 3:1
  * against the page. The chosen K, the test the verdict uses, is outlined in ink. A key under the
  * cells says all this in words. The ribbon shows the joint test of the table it is given, so the
- * squared deviations' table gives its own test (McLeod–Li). Pure; coordinates rounded; text
- * escaped.
+ * squared deviations' table gives its own test (McLeod–Li). Whether a cell is below alpha is the
+ * core's (each row's `jointBelowAlpha`). Pure; coordinates rounded; text escaped.
  */
 import { scaleLinear } from "d3-scale";
 import { formatNumber, formatP, type LagTable } from "../core";
@@ -72,7 +72,7 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
       `${testName} p-value of lags 1 to k, k = 1..${table.maxLag}`,
     ),
   );
-  const below = table.rows.filter((r) => r.jointP < table.alpha).map((r) => r.lag);
+  const below = table.rows.filter((r) => r.jointBelowAlpha).map((r) => r.lag);
   parts.push(
     textElement(
       "desc",
@@ -84,7 +84,7 @@ export function jointRibbonSvg(table: LagTable, options: JointRibbonOptions = {}
 
   for (const row of table.rows) {
     const p = row.jointP;
-    const state = Number.isNaN(p) ? "undefined" : p < table.alpha ? "below" : "above";
+    const state = Number.isNaN(p) ? "undefined" : row.jointBelowAlpha ? "below" : "above";
     const chosen = row.lag === table.maxLag;
     const fill =
       state === "below"

@@ -6,7 +6,6 @@
  * chart formulas read it there.
  */
 import type { LagRow, LagTable } from "../core";
-import { rowZone } from "./lagViews";
 import { ZONE_SHORT } from "./palette";
 
 export function lagTableHeader(table: LagTable): string[] {
@@ -26,13 +25,5 @@ export const LAG_TABLE_Z_COLUMN = 3;
 
 /** One lag's figures, in the columns of `lagTableHeader`; the corridor as a word. */
 export function lagTableValues(row: LagRow): (number | string)[] {
-  return [
-    row.lag,
-    row.correlation,
-    row.partial,
-    row.z,
-    ZONE_SHORT[rowZone(row)],
-    row.pLag,
-    row.pSidak,
-  ];
+  return [row.lag, row.correlation, row.partial, row.z, ZONE_SHORT[row.zone], row.pLag, row.pSidak];
 }

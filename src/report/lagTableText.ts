@@ -6,7 +6,7 @@
  * keeps full precision.
  */
 import { formatP, referencedPPhrase, seriesName, type LagTable } from "../core";
-import { jointTestName, rowZone, viewBandWords } from "./lagViews";
+import { jointTestName, viewBandWords } from "./lagViews";
 import { ZONE_SHORT } from "./palette";
 import { paddedNumber, paddedP } from "./tableCells";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
@@ -36,7 +36,7 @@ export function lagTableText(table: LagTable): string {
       [
         String(row.lag).padStart(5),
         paddedNumber(row.z, 2, 7),
-        ` ${ZONE_SHORT[rowZone(row)].padEnd(8)}`,
+        ` ${ZONE_SHORT[row.zone].padEnd(8)}`,
         paddedP(row.pLag, 11),
         paddedP(row.pSidak, 11),
         paddedNumber(row.correlation, 4, 10),

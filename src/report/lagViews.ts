@@ -1,18 +1,16 @@
 /**
  * The three views of the evidence chart, as lists of standardised points:
  *
- * - `correlation`: r_k and z_k = r_k / se_k with se_k of the table's band kind (from the core);
- * - `partial`: φ_kk and z = φ_kk·√n. Under white noise the sample partial autocorrelations have
- *   standard error 1/√n whatever the band kind (Quenouille 1949, JRSS B 11:68–84), so their z is
- *   measured against the same two corridors;
+ * - `correlation`: r_k and z_k = r_k / se_k with se_k of the table's band kind;
+ * - `partial`: φ_kk and its z, measured against the same two corridors (core/partial.ts says why);
  * - `squares`: the autocorrelation of the squared deviations, from a lag table computed with
  *   testKind "squares" (the McLeod–Li view of volatility clustering).
  *
  * A point's zone says which corridor holds it: inside ±z_{1−α/2}, between that and the outer level
- * for K lags, or beyond. The comparisons are the core's (`beyond`, `outer`) for the correlation
- * views and the same strict inequalities for the partials.
+ * for K lags, or beyond. Every z and zone is the core's (the lag table's rows); this file only
+ * picks them.
  */
-import { TEST_NAMES, type BandKind, type LagRow, type LagTable } from "../core";
+import { TEST_NAMES, type BandKind, type LagTable } from "../core";
 import type { Zone } from "./palette";
 
 export type ChartView = "correlation" | "partial" | "squares";
@@ -60,20 +58,6 @@ export interface LagPoint {
   readonly zone: Zone | "none";
 }
 
-function zoneOf(z: number, innerLevel: number, outerLevel: number): Zone | "none" {
-  if (Number.isNaN(z)) return "none";
-  const size = Math.abs(z);
-  if (size > outerLevel) return "beyond";
-  if (size > innerLevel) return "between";
-  return "inside";
-}
-
-/** A lag row's zone, from the core's comparisons: `outer` is beyond, `crossesBand` alone is between. */
-export function rowZone(row: LagRow): Zone | "none" {
-  if (Number.isNaN(row.z)) return "none";
-  return row.outer ? "beyond" : row.crossesBand ? "between" : "inside";
-}
-
 /** The points of one view. `squares` needs a table whose subject is the squared deviations. */
 export function lagPoints(table: LagTable, view: ChartView): LagPoint[] {
   if ((view === "squares") !== (table.subject === "squares")) {
@@ -82,21 +66,17 @@ export function lagPoints(table: LagTable, view: ChartView): LagPoint[] {
     );
   }
   if (view === "partial") {
-    const root = Math.sqrt(table.n);
-    return table.rows.map((row) => {
-      const z = row.partial * root;
-      return {
-        lag: row.lag,
-        value: row.partial,
-        z,
-        zone: zoneOf(z, table.innerLevel, table.outerLevel),
-      };
-    });
+    return table.rows.map((row) => ({
+      lag: row.lag,
+      value: row.partial,
+      z: row.partialZ,
+      zone: row.partialZone,
+    }));
   }
   return table.rows.map((row) => ({
     lag: row.lag,
     value: row.correlation,
     z: row.z,
-    zone: rowZone(row),
+    zone: row.zone,
   }));
 }

@@ -8,6 +8,8 @@
  * original is 2.0:1 on the outer corridor), and the corridors keep light fills, which help the
  * eye but carry nothing on their own, while their solid edges carry the contrast.
  */
+import type { CorridorZone } from "../core";
+
 export const PALETTE = {
   /** Verdict clear. */
   clear: "#0072B2",
@@ -41,8 +43,8 @@ export const PALETTE = {
   muted: "#56636F",
 } as const;
 
-/** Where a lag's standardised value lies, and the colour that says so. */
-export type Zone = "inside" | "between" | "beyond";
+/** Where a lag's standardised value lies (decided in the core), and the colour that says so. */
+export type Zone = Exclude<CorridorZone, "none">;
 
 export const ZONE_COLOURS: Readonly<Record<Zone, string>> = {
   inside: PALETTE.inside,

@@ -12,7 +12,6 @@ import { formatP, seriesName, TEST_NAMES, type LagTable } from "../core";
 import { cellAddress, columnLetters, rangeAddress } from "./a1Address";
 import { explainVerdict, type Explanation } from "./explain";
 import { LAG_TABLE_Z_COLUMN, lagTableHeader, lagTableValues } from "./lagTableHeader";
-import { rowZone } from "./lagViews";
 import { PALETTE } from "./palette";
 import { SCREENING_CAUTION } from "./verdictBadge";
 
@@ -240,7 +239,7 @@ function buildPlan(
       put(row, HELPER_COLUMN + 6, guard(`ABS(${z})>${outerCell}`));
     } else {
       // An infinite z has no place in a chart's cell: it is left out like a lag with no pairs.
-      const zone = Number.isFinite(r.z) ? rowZone(r) : "none";
+      const zone = Number.isFinite(r.z) ? r.zone : "none";
       ZONE_ORDER.forEach((z, j) => text(row, HELPER_COLUMN + 4 + j, zone === z ? r.z : ""));
     }
   });

@@ -4,7 +4,14 @@
  * columns and one row of helper formulas per data cell. Echolot's own figures are recorded
  * under the keys the cells carry, so a test can compare what a spreadsheet computes.
  */
-import { pairCounts, seriesName, TEST_NAMES, type LagTable, type Series } from "../core";
+import {
+  pairCounts,
+  seriesName,
+  TEST_NAMES,
+  type LagRow,
+  type LagTable,
+  type Series,
+} from "../core";
 import { absoluteCell, absoluteColumn, textLiteral } from "./portableFormulas";
 import { reasonFormula, standardErrorFormula, termFormula } from "./portableLagFormulas";
 import {
@@ -32,9 +39,9 @@ import type {
 import type { PlanCellContent } from "./placedReport";
 import { SCREENING_CAUTION } from "./verdictBadge";
 
-function zoneOf(z: number, crossesBand: boolean, outer: boolean): string {
-  if (!Number.isFinite(z)) return "";
-  return outer ? "beyond" : crossesBand ? "between" : "inside";
+/** The core's zone of a lag, or "" where the sheet's z is not a number (no pairs, or infinite). */
+function zoneCell(row: LagRow): string {
+  return Number.isFinite(row.z) ? row.zone : "";
 }
 
 /**
@@ -315,7 +322,7 @@ export function portableBlock(
       {
         formula: `=IF(ISNUMBER(${z}),IF(ABS(${z})>${outer},"beyond",IF(ABS(${z})>${inner},"between","inside")),"")`,
       },
-      zoneOf(row.z, row.crossesBand, row.outer),
+      zoneCell(row),
     );
     put(
       r,

@@ -50,8 +50,8 @@ export function sideChecks(
     alpha: table.alpha,
     volatility: step(() => volatilityCheck(series, { lags: table.maxLag, alpha: table.alpha })),
     bias: step(() => biasCheck(series, { alpha: table.alpha })),
-    runs: step(() => runsCheck(series)),
-    normality: step(() => normalityCheck(series)),
+    runs: step(() => runsCheck(series, { alpha: table.alpha })),
+    normality: step(() => normalityCheck(series, { alpha: table.alpha })),
   };
 }
 
@@ -59,14 +59,13 @@ export function sideChecks(
 export function sideFindings(
   checks: SideChecks,
 ): { name: string; finding: CheckFinding | string }[] {
-  const { alpha } = checks;
   const found = <T>(value: T | string, word: (v: T) => CheckFinding) =>
     typeof value === "string" ? value : word(value);
   return [
     { name: "volatility", finding: found(checks.volatility, volatilityFinding) },
     { name: "bias", finding: found(checks.bias, biasFinding) },
-    { name: "runs", finding: found(checks.runs, (r) => runsFinding(r, alpha)) },
-    { name: "normality", finding: found(checks.normality, (r) => normalityFinding(r, alpha)) },
+    { name: "runs", finding: found(checks.runs, runsFinding) },
+    { name: "normality", finding: found(checks.normality, normalityFinding) },
   ];
 }
 

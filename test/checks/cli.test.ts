@@ -4,6 +4,8 @@
  * scripts/generate-demo.ts says which blends were made dependent or biased).
  */
 import { describe, expect, it } from "vitest";
+import type { CheckJson } from "../../src/cli/json";
+import type { AuditDocumentJson, BatchDocumentJson } from "../../src/cli/jsonBatch";
 import { runCli, csvFile } from "../cli/run";
 import { expectClose } from "../helpers/expectClose";
 
@@ -13,23 +15,6 @@ const SERIES_F = "test/fixtures/series-f.csv";
 const UNDER_REACTS = ["Copper Kettle", "Birch Parlour", "Greywell", "Wickerwork"];
 const BIASED = ["Lantern Hill", "Kestrel Row"];
 
-interface SeriesEntry {
-  readonly position: number;
-  readonly label: string;
-  readonly n: number;
-  readonly statistic: number;
-  readonly df: number;
-  readonly p: number;
-  readonly qValue: number;
-  readonly verdict: string;
-}
-
-interface Document {
-  readonly series: readonly SeriesEntry[];
-  readonly flaggedRaw: number;
-  readonly flaggedFdr: number;
-}
-
 function json<T>(args: readonly string[]): T {
   const result = runCli(args);
   expect(result.status, `echolot ${args.join(" ")}: ${result.stderr}`).toBe(0);
@@ -38,13 +23,7 @@ function json<T>(args: readonly string[]): T {
 
 describe("echolot check --json: the side checks", () => {
   it("adds volatility, bias, runs and normality with the promised fields (Series F values derived in METHODS)", () => {
-    const doc = json<Record<string, Record<string, number>>>([
-      "check",
-      SERIES_F,
-      "--lags",
-      "4",
-      "--json",
-    ]);
+    const doc = json<CheckJson>(["check", SERIES_F, "--lags", "4", "--json"]);
     expect(Object.keys(doc.volatility ?? {})).toEqual(["lm", "df", "p", "mcleodLiQ", "mcleodLiP"]);
     expect(Object.keys(doc.bias ?? {})).toEqual(["mean", "se", "t", "p", "hacLags"]);
     expect(Object.keys(doc.runs ?? {})).toEqual(["runs", "expected", "z", "p"]);
@@ -64,16 +43,16 @@ describe("echolot check --json: the side checks", () => {
   it("writes null for a side check the data cannot support and says why", () => {
     const values = Array.from({ length: 40 }, (_, t) => (t % 2 === 0 ? 1 : -1));
     const file = csvFile("alternating.csv", `x\n${values.join("\n")}\n`);
-    const doc = json<Record<string, unknown>>(["check", file, "--json"]);
+    const doc = json<CheckJson>(["check", file, "--json"]);
     expect(doc.volatility).toBeNull();
-    expect((doc.notComputed as Record<string, string>).volatility).toMatch(/squared deviations/);
+    expect(doc.notComputed?.volatility).toMatch(/squared deviations/);
     expect(doc.bias).not.toBeNull();
   });
 });
 
 describe("echolot batch", () => {
   it("batch --json has one entry per numeric column and the raw and FDR counts", () => {
-    const doc = json<Document>(["batch", DEMO, "--json"]);
+    const doc = json<BatchDocumentJson>(["batch", DEMO, "--json"]);
     expect(doc.series).toHaveLength(24);
     expect(Object.keys(doc.series[0] ?? {})).toEqual(
       expect.arrayContaining(["rank", "label", "n", "statistic", "df", "p", "qValue", "verdict"]),
@@ -86,7 +65,7 @@ describe("echolot batch", () => {
   });
 
   it("batch(demo) keeps exactly the under-reacting blends flagged under the FDR", () => {
-    const doc = json<Document>(["batch", DEMO, "--json"]);
+    const doc = json<BatchDocumentJson>(["batch", DEMO, "--json"]);
     const kept = doc.series.filter((s) => s.qValue <= 0.05).map((s) => s.label);
     expect(kept.sort()).toEqual([...UNDER_REACTS].sort());
   });
@@ -114,21 +93,15 @@ describe("echolot batch", () => {
 
 describe("echolot audit", () => {
   it("audit(demo, horizon 1) calls every under-reacting and biased blend structure", () => {
-    const doc = json<{ series: readonly (SeriesEntry & { bias: { p: number } })[] }>([
-      "audit",
-      DEMO,
-      "--horizon",
-      "1",
-      "--json",
-    ]);
+    const doc = json<AuditDocumentJson>(["audit", DEMO, "--horizon", "1", "--json"]);
     expect(doc.series).toHaveLength(24);
     for (const label of [...UNDER_REACTS, ...BIASED]) {
       expect(doc.series.find((s) => s.label === label)?.verdict, label).toBe("structure");
     }
     for (const label of BIASED) {
-      expect(doc.series.find((s) => s.label === label)?.bias.p, `${label} bias p`).toBeLessThan(
-        1e-6,
-      );
+      const entry = doc.series.find((s) => s.label === label);
+      const biasP = entry !== undefined && "bias" in entry ? entry.bias.p : NaN;
+      expect(biasP, `${label} bias p`).toBeLessThan(1e-6);
     }
   });
 
@@ -144,15 +117,11 @@ describe("echolot audit", () => {
     expect(reasons.stdout.replace(/\s+/g, " ")).toMatch(
       /Lags 1–2 are expected to be non-zero for 3-step errors and are not counted; their autocorrelations: -?0\.\d+, -?0\.\d+\./,
     );
-    const doc = json<{ series: { firstLag: number; lags: { counted: boolean }[] }[] }>([
-      "audit",
-      SERIES_F,
-      "--horizon",
-      "3",
-      "--json",
-    ]);
-    expect(doc.series[0]?.firstLag).toBe(3);
-    expect(doc.series[0]?.lags.filter((l) => !l.counted)).toHaveLength(2);
+    const doc = json<AuditDocumentJson>(["audit", SERIES_F, "--horizon", "3", "--json"]);
+    const first = doc.series[0];
+    const audited = first !== undefined && "firstLag" in first ? first : undefined;
+    expect(audited?.firstLag).toBe(3);
+    expect(audited?.lags.filter((l) => !l.counted)).toHaveLength(2);
   });
 
   it.each([

@@ -1,32 +1,10 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
+import type { CheckJson } from "../../src/cli/json";
 import { csvFile, ROOT, runCli } from "./run";
 
 const SERIES_F = join(ROOT, "test", "fixtures", "series-f.csv");
-
-interface CheckJson {
-  label: string;
-  n: number;
-  gaps: number;
-  maxLag: number;
-  alpha: number;
-  bandKind: string;
-  mean: number;
-  variance: number;
-  lags: {
-    lag: number;
-    corr: number;
-    partial: number;
-    band: number;
-    beyond: boolean;
-    jointQ: number;
-    jointP: number;
-  }[];
-  joint: { test: string; q: number; df: number; p: number };
-  falseAlarm: { tested: number; expected: number; beyond: number; chance: number };
-  verdict: { word: string; reason: string };
-}
 
 function checkJson(args: readonly string[]): CheckJson {
   const result = runCli(["check", ...args, "--json"]);

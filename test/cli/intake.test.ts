@@ -9,16 +9,9 @@ import { dirname } from "node:path";
 import { describe, expect, it } from "vitest";
 import { seededRandom } from "../../src/sim/random";
 import { whiteNoise } from "../../src/sim/processes";
+import type { CheckJson } from "../../src/cli/json";
+import type { BatchDocumentJson } from "../../src/cli/jsonBatch";
 import { CLI_PATH, csvFile, runCli, type CliResult } from "./run";
-
-interface CheckJson {
-  source: string;
-  label: string;
-  n: number;
-  gaps: number;
-  lags: { corr: number }[];
-  joint: { q: number; p: number };
-}
 
 function ok(result: CliResult, what: string): string {
   expect(result.stderr, `stderr of ${what}`).toBe("");
@@ -173,10 +166,9 @@ describe("echolot: nothing chosen silently", () => {
   it("batch lists every column it did not analyse, and why", () => {
     const lines = rows.map((r, i) => [...r, i === 3 ? "n/a?" : String(-r[4]!)].join(","));
     const file = csvFile("batch5.csv", [`${header},bad`, ...lines].join("\n"));
-    const doc = JSON.parse(ok(runCli(["batch", file, "--json"]), "batch --json")) as {
-      series: { label: string }[];
-      notAnalysed: { name: string; reason: string }[];
-    };
+    const doc = JSON.parse(
+      ok(runCli(["batch", file, "--json"]), "batch --json"),
+    ) as BatchDocumentJson;
     // The series come in the core's ranked order: compare them as a set.
     expect(doc.series.map((s) => s.label).sort()).toEqual(["fitted", "resid"]);
     expect(doc.notAnalysed.map((n) => n.name)).toEqual([
@@ -299,10 +291,9 @@ describe("echolot batch and audit in long format", () => {
   const LONG = ["--id", "item", "--time", "week", "--value", "error"];
 
   it("groups by id, orders by time, and reads missing weeks as gaps, as a column with empty lines would be", () => {
-    const doc = JSON.parse(ok(runCli(["batch", file, ...LONG, "--json"]), "batch long")) as {
-      source: string;
-      series: { label: string; n: number; statistic: number }[];
-    };
+    const doc = JSON.parse(
+      ok(runCli(["batch", file, ...LONG, "--json"]), "batch long"),
+    ) as BatchDocumentJson;
     expect(doc.source).toMatch(
       /long format, 58 rows, 2 ids in "item", .* weekly \(2 missing periods read as gaps\)/,
     );

@@ -7,14 +7,8 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { ar1, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
+import type { BatchDocumentJson, BatchJson } from "../../src/cli/jsonBatch";
 import { csvFile, runCli } from "./run";
-
-interface BatchJson {
-  alpha: number;
-  series: { label: string; p: number | null; qValue: number | null; verdict: string | null }[];
-  flaggedRaw: number;
-  flaggedFdr: number;
-}
 
 const ITEMS = Array.from({ length: 14 }, (_, i) => `item-${String(i).padStart(2, "0")}`);
 const rng = seededRandom(1202);
@@ -46,7 +40,7 @@ function merged(parts: readonly string[]): string {
 describe("batch --format jsonl and fdr", () => {
   const whole = JSON.parse(
     runCli(["batch", csvFile("whole.csv", [header, ...rows].join("\n")), ...LONG, "--json"]).stdout,
-  ) as BatchJson;
+  ) as BatchDocumentJson;
   const all = partFile("all", ITEMS);
 
   it("writes one line per series with id, n, statistic, df, p, reference, verdict and reason", () => {

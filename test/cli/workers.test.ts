@@ -7,6 +7,7 @@
 import { tmpdir } from "node:os";
 import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
+import type { AuditDocumentJson, BatchDocumentJson } from "../../src/cli/jsonBatch";
 import { batchCheck, seriesFromValues, type Series } from "../../src/core";
 import { ar1, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
@@ -52,10 +53,7 @@ describe("echolot batch/audit --workers N", () => {
   it("batch --json gives the same bytes for 1 and 3 workers, and the core's batch figures", () => {
     const [one, three] = outputs(["batch", file, ...LONG, "--json"], [1, 3]);
     expect(three).toBe(one);
-    const document = JSON.parse(one!) as {
-      series: { label: string; p: number; qValue: number; verdict: string }[];
-      notAnalysed: { name: string }[];
-    };
+    const document = JSON.parse(one!) as BatchDocumentJson;
     expect(document.notAnalysed.map((n) => n.name)).toEqual(['item "id-bad"']);
     const series: Series[] = written.map((errors, i) =>
       seriesFromValues(
@@ -85,7 +83,7 @@ describe("echolot batch/audit --workers N", () => {
 
   it("audit --json gives the same bytes for 1 and 3 workers", () => {
     const [one, three] = outputs(["audit", few, ...LONG, "--horizon", "2", "--json"], [1, 3]);
-    expect((JSON.parse(one!) as { series: unknown[] }).series).toHaveLength(32);
+    expect((JSON.parse(one!) as AuditDocumentJson).series).toHaveLength(32);
     expect(three).toBe(one);
   });
 

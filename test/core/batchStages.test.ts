@@ -70,7 +70,10 @@ describe("batchOfResults(series results)", () => {
       { alpha: 0.01, testKind: "box-pierce" as const },
     ]) {
       const whole = batchCheck(list, options);
-      const staged = batchOfResults(list.map((s, i) => seriesResult(s, i, options)));
+      const staged = batchOfResults(
+        list.map((s, i) => seriesResult(s, i, options)),
+        options,
+      );
       expectIdentical(staged, whole);
     }
   });
@@ -97,10 +100,7 @@ describe("auditBatchOf(audit entries)", () => {
     const list = mixedBatch();
     for (const options of [{ horizon: 1 }, { horizon: 3, season: 4 }]) {
       const whole = auditBatch(list, options);
-      const staged = auditBatchOf(
-        list.map((s, i) => auditEntry(s, i, options)),
-        whole.alpha,
-      );
+      const staged = auditBatchOf(list.map((s, i) => auditEntry(s, i, options)));
       expectIdentical(staged, whole);
     }
   });

@@ -11,6 +11,7 @@ import {
   kthLargest,
   kthLargestOfRest,
   kthSmallest,
+  sortAscending,
   upperCounts,
 } from "../../src/core/ranks";
 
@@ -65,6 +66,54 @@ describe("commonLevel(columns, alpha)", () => {
           expect(commonLevel(columns, alpha)).toEqual(expected);
         },
       ),
+    );
+  });
+});
+
+/** Arrays of 0–700 doubles with ties, signed zeros, infinities and the odd NaN. */
+const awkwardArrays = fc
+  .array(
+    fc.oneof(
+      { weight: 6, arbitrary: fc.integer({ min: -5, max: 5 }).map((l) => l * 0.5) },
+      { weight: 4, arbitrary: fc.double({ noNaN: true }) },
+      { weight: 1, arbitrary: fc.constantFrom(-0, 0, Infinity, -Infinity, NaN) },
+    ),
+    { maxLength: 700 },
+  )
+  .map((values) => Float64Array.from(values));
+
+describe("sortAscending(values) and kthSmallest(values, j, from)", () => {
+  it("give exactly the typed array's own sort: −0 before +0, NaN last, every input", () => {
+    fc.assert(
+      fc.property(awkwardArrays, (values) => {
+        const expected = values.slice().sort();
+        const got = sortAscending(values.slice());
+        expect(got.length).toBe(expected.length);
+        for (let i = 0; i < got.length; i++) expect(Object.is(got[i], expected[i])).toBe(true);
+      }),
+      { numRuns: 400 },
+    );
+  });
+
+  it("kthSmallest is the j-th of the sorted rest, for every j and from", () => {
+    fc.assert(
+      fc.property(
+        awkwardArrays,
+        fc.integer({ min: -1, max: 702 }),
+        fc.integer({ min: 0, max: 3 }),
+        (values, j, from) => {
+          const rest = values.slice(Math.min(from, values.length)).sort();
+          const expected = j >= 1 && j <= rest.length ? (rest[j - 1] as number) : Infinity;
+          expect(Object.is(kthSmallest(values, j, from), expected)).toBe(true);
+          // Without zeros and NaN the selection path runs instead of the fallback sort.
+          const plain = values.filter((v) => v !== 0 && !Number.isNaN(v));
+          const plainRest = plain.slice().sort();
+          const plainExpected =
+            j >= 1 && j <= plainRest.length ? (plainRest[j - 1] as number) : Infinity;
+          expect(Object.is(kthSmallest(plain, j), plainExpected)).toBe(true);
+        },
+      ),
+      { numRuns: 400 },
     );
   });
 });

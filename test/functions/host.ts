@@ -146,6 +146,34 @@ function firstError(arg: unknown): HostError | undefined {
   return undefined;
 }
 
+/** The built-in globals of a fresh context that a script may name (not `eval`, not constants). */
+const BUILT_INS: readonly string[] = (
+  runInContext("Object.getOwnPropertyNames(globalThis)", createContext()) as string[]
+).filter(
+  (name) =>
+    /^[A-Za-z_$][\w$]*$/.test(name) &&
+    !["eval", "undefined", "NaN", "Infinity", "globalThis"].includes(name),
+);
+
+/**
+ * Runs a script in the context with the context's own built-ins (Math, Float64Array, Number, …)
+ * bound as parameters of a wrapping function. A Node vm context resolves every global name
+ * through an interceptor on its sandbox object (nodejs.org/api/vm.html, "What does it mean to
+ * 'contextify' an object?"), so each `Math.abs` in a hot loop became a call into C++: a
+ * 1,048,576-row SERIESCROSSCORR took 14 s of CPU instead of 0.5 s. The host's runtime is a
+ * plain global scope, where such lookups are ordinary. The bindings are the context's own
+ * objects, so the script sees the same values; `globalThis` and the sandbox's names
+ * (`CustomFunctions`, `Office`) are still looked up in the context. `lineOffset` keeps the
+ * script's line numbers.
+ */
+function runAsScript(source: string, context: object, filename: string): void {
+  const names = BUILT_INS.join(", ");
+  runInContext(`(function (${names}) {\n${source}\n})(${names});`, context, {
+    filename,
+    lineOffset: -1,
+  });
+}
+
 /**
  * Loads dist/functions.js into a fresh global scope with a fake host. Error cells reach the
  * functions as the host sends them: without `allowErrorForDataTypeAny` the host answers with the
@@ -176,7 +204,7 @@ export function loadBuiltFunctions(errorShape: ErrorShape = "flags"): LoadedAddI
     },
   };
   const context = createContext({ CustomFunctions, Office, console });
-  runInContext(source, context, { filename: "functions.js" });
+  runAsScript(source, context, "functions.js");
 
   function invoke(id: string, ...args: unknown[]): Invocation {
     const handler = handlers.get(id);

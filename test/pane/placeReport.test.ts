@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { lagTable, seriesFromCells, type LagTable } from "../../src/core";
-import { PALETTE, ZONE_SHORT, liveReportPlan, rowZone, snapshotReportPlan } from "../../src/report";
+import { PALETTE, ZONE_SHORT, liveReportPlan, snapshotReportPlan } from "../../src/report";
 import { absoluteReference } from "../../taskpane/host/address";
 import { literalText, placeReport } from "../../taskpane/host/placeReport";
 import { readSelectedRange } from "../../taskpane/host/readRange";
@@ -191,7 +191,7 @@ describe("placeReport(run, snapshotReportPlan(table))", () => {
         r?.correlation,
         r?.partial,
         r?.z,
-        r === undefined ? "" : ZONE_SHORT[rowZone(r)],
+        r === undefined ? "" : ZONE_SHORT[r.zone],
         r?.pLag,
         r?.pSidak,
       ]);

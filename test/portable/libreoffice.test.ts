@@ -36,6 +36,7 @@ import {
   type LagTable,
   type Series,
 } from "../../src/core";
+import type { CheckJson } from "../../src/cli/json";
 import { portablePlan, type Figure, type PortablePlan } from "../../src/report";
 import {
   DATA_SHEET,
@@ -566,10 +567,7 @@ describe("portable reports recalculated in LibreOffice Calc", () => {
   });
 
   it("matches what `echolot check` and `echolot batch` print for Series F and the demo blends", () => {
-    const check = JSON.parse(runCli(["check", SERIES_F, "--json"]).stdout) as {
-      joint: { q: number; df: number; p: number };
-      verdict: { word: string };
-    };
+    const check = JSON.parse(runCli(["check", SERIES_F, "--json"]).stdout) as CheckJson;
     const f = cases
       .find((c) => c.name === "Series F")
       ?.recalculated?.getWorksheet("Portable report");

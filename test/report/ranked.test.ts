@@ -55,10 +55,14 @@ function row(label: string, p: number, qValue: number, biasQ = NaN): BatchRow {
 function batch(rows: BatchRow[]): BatchCheck {
   return {
     alpha: 0.05,
+    testKind: "ljung-box",
+    maxLag: null,
+    season: null,
     rows,
     flaggedRaw: 0,
     flaggedFdr: 0,
     analysed: rows.length,
+    expectedRawFlags: rows.length * 0.05,
     biasFlaggedRaw: 0,
     biasFlaggedFdr: 0,
   };
@@ -106,11 +110,9 @@ describe("rankedBatchRows(batch)", () => {
 });
 
 describe("batchText(batch, context)", () => {
-  const context = { maxLag: null, season: null, testKind: "ljung-box" } as const;
-
   it("shortens a long name with … to stay within 80 columns, and says where it is whole", () => {
     const long = "Northern warehouse, slow-moving spare parts, weekly";
-    const text = batchText(batch([row(long, 0.001, 0.002), row("short", 0.5, 0.5)]), context);
+    const text = batchText(batch([row(long, 0.001, 0.002), row("short", 0.5, 0.5)]), {});
     for (const line of text.split("\n"))
       expect(Array.from(line).length, line).toBeLessThanOrEqual(80);
     expect(text).toMatch(/^\s+1 Northern warehouse[^\n]*… +50 /m);
@@ -119,7 +121,6 @@ describe("batchText(batch, context)", () => {
 
   it("says so when --kept leaves no row", () => {
     const text = batchText(batch([row("a", 0.5, 0.6), row("b", 0.7, 0.7)]), {
-      ...context,
       selection: { top: null, keptOnly: true },
     });
     expect(text).toMatch(/none of the 2 ranked rows is kept after the false-discovery step\./);
