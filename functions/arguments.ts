@@ -2,9 +2,21 @@
  * Reading the host's arguments. Series arguments arrive as untyped 2-D cell arrays (`any[][]`, so
  * a blank is never mistaken for 0) and go through the core's intake. Scalar arguments may arrive
  * as `null` (omitted), as a number, or — through a cell reference — as "" for a blank cell; each
- * is checked here for its type, and the core then checks its range and writes the message.
+ * is checked here for its type, and the core then checks its range and writes the message. Every
+ * scalar is read by the core's name for it; `cellFunction` spells that name as the function's
+ * argument where the two differ (`ArgumentNames`).
  */
-import { invalid, seriesFromCells, cellErrorCode, type Series } from "../src/core";
+import {
+  cellErrorCode,
+  invalid,
+  refuseParameter,
+  seriesFromCells,
+  type ParameterName,
+  type Series,
+} from "../src/core";
+
+/** A function's argument names where they differ from the core's names for its parameters. */
+export type ArgumentNames = Readonly<Partial<Record<ParameterName, string>>>;
 
 /** A series range, one row or one column; a 2-D block or a non-range is refused. */
 export function readSeries(cells: unknown, name = "series"): Series {
@@ -28,13 +40,32 @@ function describe(value: unknown): string {
  * even text that looks like a number — a boolean, an error value or a non-finite number is
  * refused.
  */
-export function optionalNumber(name: string, value: unknown): number | null {
+export function optionalNumber(name: ParameterName, value: unknown): number | null {
   if (value === null || value === undefined || value === "") return null;
   if (typeof value === "number" && Number.isFinite(value)) return value;
+  const parameter = { name, allows: "number" } as const;
   if (typeof value === "string" && value.trim() !== "" && Number.isFinite(Number(value))) {
-    invalid(`${name} must be a number, not text (got ${describe(value)}); type it without quotes`);
+    refuseParameter(
+      parameter,
+      `${name} must be a number, not text (got ${describe(value)}); type it without quotes`,
+    );
   }
-  return invalid(`${name} must be a number (got ${describe(value)})`);
+  return refuseParameter(parameter, `${name} must be a number (got ${describe(value)})`);
+}
+
+/**
+ * A number the function cannot do without, read as `optionalNumber` reads it; omitted or blank,
+ * it is refused with what to give (`wanted`: "the rows per window, …").
+ */
+export function requiredNumber(name: ParameterName, value: unknown, wanted: string): number {
+  const number = optionalNumber(name, value);
+  if (number === null) {
+    refuseParameter(
+      { name, allows: "number" },
+      `${name} was not given (omitted, or a blank cell): give ${wanted}`,
+    );
+  }
+  return number;
 }
 
 /**

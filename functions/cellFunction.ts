@@ -5,15 +5,20 @@
  * ours; it still reaches the cell as #VALUE! with its message rather than as a bare error.
  */
 import { isEcholotError } from "../src/core";
+import type { ArgumentNames } from "./arguments";
 
-function hostError(error: unknown): CustomFunctions.Error {
+function hostError(error: unknown, names: ArgumentNames): CustomFunctions.Error {
   if (error instanceof CustomFunctions.Error) return error;
   if (isEcholotError(error)) {
     const code =
       error.kind === "short"
         ? CustomFunctions.ErrorCode.notAvailable
         : CustomFunctions.ErrorCode.invalidValue;
-    return new CustomFunctions.Error(code, error.message);
+    const argument = error.parameter === undefined ? undefined : names[error.parameter.name];
+    return new CustomFunctions.Error(
+      code,
+      argument === undefined ? error.message : error.messageNaming(argument),
+    );
   }
   const message = error instanceof Error ? error.message : String(error);
   return new CustomFunctions.Error(
@@ -22,11 +27,14 @@ function hostError(error: unknown): CustomFunctions.Error {
   );
 }
 
-/** Runs `body` and throws any failure as the matching host error. */
-export function cellFunction<T>(body: () => T): T {
+/**
+ * Runs `body` and throws any failure as the matching host error; a refused argument is named as
+ * the function names it (`names`, where that differs from the core's name).
+ */
+export function cellFunction<T>(body: () => T, names: ArgumentNames = {}): T {
   try {
     return body();
   } catch (error) {
-    throw hostError(error);
+    throw hostError(error, names);
   }
 }

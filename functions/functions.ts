@@ -23,8 +23,6 @@ import {
   parseBandKind,
   parseTestKind,
   placeOnCells,
-  requireValues,
-  resolveLagCount,
   rollingCheck,
   runsCheck,
   volatilityCheck,
@@ -34,7 +32,14 @@ import {
   type LagFigures,
   type LagTable,
 } from "../src/core";
-import { optionalKeyword, optionalNumber, optionalSeason, readSeries } from "./arguments";
+import {
+  optionalKeyword,
+  optionalNumber,
+  optionalSeason,
+  readSeries,
+  requiredNumber,
+  type ArgumentNames,
+} from "./arguments";
 import { lagTableHeader, lagTableValues } from "../src/report/lagTableHeader";
 import { cellFunction } from "./cellFunction";
 import { column, numberCell, row, type Cell } from "./shape";
@@ -120,6 +125,9 @@ export function seriesLagTable(
   });
 }
 
+/** SERIESPORTMANTEAU's `lags` is the core's maxLag; its other arguments have the core's names. */
+const PORTMANTEAU_ARGUMENTS: ArgumentNames = { maxLag: "lags" };
+
 /**
  * Joint (portmanteau) test that the autocorrelations at lags 1 to lags are all zero; spills Q, df, p.
  * @customfunction SERIESPORTMANTEAU
@@ -137,19 +145,13 @@ export function seriesPortmanteau(
   testKind?: string,
 ): any[][] {
   return cellFunction(() => {
-    const parsed = readSeries(series);
-    const lagCount = optionalNumber("lags", lags);
-    if (lagCount !== null) {
-      requireValues(parsed, 3, "a portmanteau test");
-      resolveLagCount("lags", lagCount, parsed.count);
-    }
-    const { joint } = noiseCheck(parsed, {
-      maxLag: lagCount,
+    const { joint } = noiseCheck(readSeries(series), {
+      maxLag: optionalNumber("maxLag", lags),
       fittedParams: optionalNumber("fittedParams", fittedParams),
       testKind: parseTestKind(optionalKeyword(testKind)),
     });
     return row(joint.q, joint.df, joint.p);
-  });
+  }, PORTMANTEAU_ARGUMENTS);
 }
 
 /**
@@ -370,7 +372,11 @@ export function seriesRollCheck(
   return cellFunction(() => {
     const parsed = readSeries(series);
     const result = rollingCheck(parsed, {
-      window: optionalNumber("window", window) as number,
+      window: requiredNumber(
+        "window",
+        window,
+        "the rows per window, a whole number from 3 to the length of the series",
+      ),
       lags: optionalNumber("lags", lags),
       step: optionalNumber("step", step),
     });

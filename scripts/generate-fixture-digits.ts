@@ -1,12 +1,14 @@
 /**
  * Writes the computed columns of the reference fixtures in test/fixtures/ (see
  * scripts/referenceDigits.ts for what each column is and how it is evaluated); the printed columns
- * and their sources are transcriptions and stay as they are. `--check` computes in memory and
- * fails if a committed file differs. Run from the project folder:
+ * and their sources are transcriptions and stay as they are. derived-values.tsv is computed
+ * whole (scripts/derivedDigits.ts). `--check` computes in memory and fails if a committed file
+ * differs. Run from the project folder:
  *   npm run fixtures [-- --check]
  */
-import { readFileSync, writeFileSync } from "node:fs";
+import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
+import { derivedTable } from "./derivedDigits";
 import { chiSquareTable, lewTable, normalQuantileTable } from "./referenceDigits";
 
 // Run from the project folder (`npm run fixtures` does so).
@@ -21,17 +23,24 @@ function strdIntegers(name: string): bigint[] {
     .map((line) => BigInt(line));
 }
 
+/** series-f.csv's values (a header line, then one whole number a line). */
+function seriesFIntegers(): bigint[] {
+  const [, ...lines] = readFileSync(join(FIXTURES, "series-f.csv"), "utf8").split(/\r?\n/);
+  return lines.filter((line) => line.trim() !== "").map((line) => BigInt(line.trim()));
+}
+
 const FILES: Readonly<Record<string, (text: string) => string>> = {
   "chisq-table.tsv": chiSquareTable,
   "normal-quantiles.tsv": normalQuantileTable,
   "lew-acf-ehandbook.tsv": (text) => lewTable(text, strdIntegers("Lew")),
+  "derived-values.tsv": () => derivedTable(seriesFIntegers()),
 };
 
 const check = process.argv.includes("--check");
 let stale = 0;
 for (const [name, make] of Object.entries(FILES)) {
   const path = join(FIXTURES, name);
-  const current = readFileSync(path, "utf8");
+  const current = existsSync(path) ? readFileSync(path, "utf8") : "";
   const text = make(current);
   if (check) {
     if (text !== current) {

@@ -5,7 +5,7 @@
  * `echolot --version` (or `-V`) prints the version; `--help` (or `-h`) after any command prints
  * that command's usage and options.
  */
-import { isEcholotError } from "../core";
+import { isEcholotError, type EcholotError, type ParameterName } from "../core";
 import { AUDIT_OPTIONS, runAudit } from "./audit";
 import { BATCH_OPTIONS, runBatch } from "./batch";
 import { CHECK_OPTIONS, runCheck } from "./check";
@@ -36,16 +36,21 @@ const COMMANDS: Readonly<Record<string, Command>> = {
   demo: { options: [], maxFiles: 0, run: () => runDemo() },
 };
 
-/** Option names of the core's messages, as the CLI spells them. */
-function cliWording(message: string): string {
-  return message
-    .replace(/^maxLag\b/, "--lags")
-    .replace(/^fittedParams\b/, "--fitted")
-    .replace(/^alpha\b/, "--alpha")
-    .replace(/^season\b/, "--season")
-    .replace(/^bandKind\b/, "--bands")
-    .replace(/^testKind\b/, "--test")
-    .replace(/^horizon\b/, "--horizon");
+/** The option that sets each core parameter the CLI takes, as users type it. */
+const OPTION_OF: Readonly<Partial<Record<ParameterName, string>>> = {
+  maxLag: "--lags",
+  fittedParams: "--fitted",
+  alpha: "--alpha",
+  season: "--season",
+  bandKind: "--bands",
+  testKind: "--test",
+  horizon: "--horizon",
+};
+
+/** A refusal as the CLI says it: a refused parameter named by its option. */
+function cliMessage(error: UsageError | EcholotError): string {
+  if (error instanceof UsageError || error.parameter === undefined) return error.message;
+  return error.messageNaming(OPTION_OF[error.parameter.name] ?? error.parameter.name);
 }
 
 function helpOf(name: string | undefined): string {
@@ -81,7 +86,7 @@ export async function main(argv: readonly string[]): Promise<number> {
     return await writeStdout(output.endsWith("\n") ? output : `${output}\n`);
   } catch (error) {
     if (error instanceof UsageError || isEcholotError(error)) {
-      process.stderr.write(`echolot: ${cliWording(error.message)}\n`);
+      process.stderr.write(`echolot: ${cliMessage(error)}\n`);
       return 2;
     }
     process.stderr.write(`echolot: internal error: ${(error as Error).stack ?? String(error)}\n`);

@@ -212,6 +212,28 @@ export function numberOption(name: string, text: string | boolean | undefined): 
   return value;
 }
 
+/**
+ * A whole-number option from `low` to `high` (`Infinity`: no upper end), read by `numberOption`;
+ * `undefined` when absent. `hint` says what the number means, in the message.
+ */
+export function wholeNumberOption(
+  values: OptionValues,
+  name: string,
+  low: number,
+  high: number,
+  hint?: string,
+): number | undefined {
+  const value = numberOption(name, values[name]);
+  if (value === undefined || (Number.isInteger(value) && value >= low && value <= high)) {
+    return value;
+  }
+  const range = high === Infinity ? `from ${low}` : `from ${low} to ${high}`;
+  const got = `got "${String(values[name])}"`;
+  throw new UsageError(
+    `--${name} must be a whole number ${range} (${hint === undefined ? got : `${hint}; ${got}`})`,
+  );
+}
+
 /** The lag table and verdict options from the command's flags (`--lags`, `--season`, …). */
 export function lagOptionsFromFlags(values: OptionValues): LagOptions {
   return {
@@ -283,9 +305,6 @@ export function formatOption(values: OptionValues, allowed: readonly OutputForma
 
 /** `--top N` (a whole number from 1) and `--kept`: which ranked rows to show. */
 export function selectionOption(values: OptionValues): RankedSelection {
-  const top = numberOption("top", values.top);
-  if (top !== undefined && !(Number.isInteger(top) && top >= 1)) {
-    throw new UsageError(`--top must be a whole number from 1 (got "${String(values.top)}")`);
-  }
+  const top = wholeNumberOption(values, "top", 1, Infinity);
   return { top: top ?? null, keptOnly: values.kept === true };
 }

@@ -25,9 +25,8 @@ import {
   type SeriesResult,
 } from "../core";
 import { readingFrom } from "./csv";
-import { UsageError } from "./errors";
 import { streamManySeries, type SeriesStream } from "./input";
-import { numberOption, type OptionValues } from "./options";
+import { wholeNumberOption, type OptionValues } from "./options";
 import { progressLine } from "./progress";
 
 /** The per-series work a batch hands out. */
@@ -58,14 +57,9 @@ export const SMALL_BATCH = 500;
  * `total` undefined checks the option only.
  */
 export function workersOption(values: OptionValues, total?: number): number {
-  const given = numberOption("workers", values.workers);
+  const given = wholeNumberOption(values, "workers", 1, 256, "1 runs in-process");
   if (given === undefined) {
     return total !== undefined && total < SMALL_BATCH ? 1 : Math.max(1, availableParallelism());
-  }
-  if (!(Number.isInteger(given) && given >= 1 && given <= 256)) {
-    throw new UsageError(
-      `--workers must be a whole number from 1 to 256 (1 runs in-process; got ${String(given)})`,
-    );
   }
   return given;
 }

@@ -10,7 +10,7 @@
  * flags expected by chance (falseAlarms.ts). Cost: one audit per series.
  */
 import { batchLabel } from "./batch";
-import { invalid, isEcholotError } from "./errors";
+import { EcholotError, isEcholotError, type RefusedParameter } from "./errors";
 import { expectedFalseFlags } from "./falseAlarms";
 import { forecastAudit, type ForecastAudit, type ForecastAuditOptions } from "./forecastAudit";
 import { batchNote, lagWord, qPhrase } from "./batchHeadline";
@@ -60,6 +60,8 @@ export interface AuditBatchEntry {
   readonly label: string;
   readonly audit: ForecastAudit | null;
   readonly problem: string;
+  /** The argument `problem` refuses, when it refuses one (kept across worker threads). */
+  readonly refused?: RefusedParameter;
 }
 
 /** The audit of one series of a batch; `index` names an unlabelled series. */
@@ -73,7 +75,8 @@ export function auditEntry(
     return { label, audit: forecastAudit(series, options), problem: "" };
   } catch (error) {
     if (!isEcholotError(error)) throw error;
-    return { label, audit: null, problem: error.message };
+    const refused = error.parameter === undefined ? {} : { refused: error.parameter };
+    return { label, audit: null, problem: error.message, ...refused };
   }
 }
 
@@ -115,7 +118,12 @@ function sharedSettings(audits: readonly ForecastAudit[]): {
 export function auditBatchOf(entries: readonly AuditBatchEntry[]): AuditBatch {
   const audits = entries.flatMap((entry) => (entry.audit === null ? [] : [entry.audit]));
   if (audits.length === 0) {
-    invalid(entries[0]?.problem ?? "there are no series to audit");
+    const first = entries[0];
+    throw new EcholotError(
+      "invalid",
+      first?.problem ?? "there are no series to audit",
+      first?.refused,
+    );
   }
   const { alpha, horizon, season } = sharedSettings(audits);
   const dependenceP = entries.map((item) => item.audit?.levels.jointP.p ?? NaN);

@@ -12,7 +12,7 @@
 import { askedLags, batchLabel, combineResults, type BatchCheck, type BatchRow } from "./batch";
 import { biasCheck } from "./bias";
 import { isPValueBound } from "./distributions";
-import { invalid, isEcholotError, type EcholotError } from "./errors";
+import { EcholotError, invalid, isEcholotError, type RefusedParameter } from "./errors";
 import { isRobustReading, robustOptions, type Reading } from "./headline";
 import { noiseCheck } from "./lagTable";
 import { parseTestKind, resolveAlpha, type LagOptions } from "./options";
@@ -60,6 +60,8 @@ export interface SeriesResult {
   readonly alpha: number;
   /** The joint test chosen (the robust reading's own test is used where `switched`). */
   readonly test: TestKind;
+  /** The argument `reason` refuses, when the series was not analysed because of one. */
+  readonly refused?: RefusedParameter;
 }
 
 /** The series' result and, when it could not be analysed, the refusal itself. */
@@ -130,6 +132,7 @@ export function analyseSeries(
       bias: null,
       alpha,
       test,
+      ...(error.parameter === undefined ? {} : { refused: error.parameter }),
     };
     return { result, refusal: error };
   }
@@ -205,7 +208,9 @@ export function batchOfResults(
     );
   }
   const first = results[0] as SeriesResult;
-  if (results.every((r) => r.verdict === null)) invalid(first.reason);
+  if (results.every((r) => r.verdict === null)) {
+    throw new EcholotError("invalid", first.reason, first.refused);
+  }
   return combineResults(results, {
     alpha: first.alpha,
     testKind: first.test,

@@ -60,7 +60,7 @@ export interface LagRow {
   readonly crossesBand: boolean;
   /** |z_k| beyond the outer corridor (Šidák over K lags). */
   readonly outer: boolean;
-  /** Where z_k lies: `beyond` when `outer`, `between` when only `beyond`, else `inside`; NaN z: `none`. */
+  /** Where z_k lies: `beyond` when `outer`, `between` when only `crossesBand`, else `inside`; NaN z: `none`. */
   readonly zone: CorridorZone;
   /** Joint test over lags 1..k. */
   readonly jointQ: number;
@@ -298,7 +298,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
       pSidak: sidakAdjust(pLag, K),
       crossesBand,
       outer,
-      // Every lag of the table is counted, so the zone's comparisons are `beyond` and `outer`.
+      // Every lag of the table is counted, so the zone's comparisons are `crossesBand` and `outer`.
       zone: corridorZone(z, corridors),
       jointQ: cumulative.q[k - 1] as number,
       jointDf: cumulative.df[k - 1] as number,

@@ -4,7 +4,7 @@
  * use negated comparisons (`!(x >= 1)`) so that NaN is refused too.
  */
 import { defaultMaxLag } from "./defaultLags";
-import { invalid, requireWholeNumber, tooShort } from "./errors";
+import { refuseParameter, requireWholeNumber, tooShort, type ParameterName } from "./errors";
 import { BAND_KINDS, TEST_KINDS, type BandKind, type Series, type TestKind } from "./types";
 
 /** Options as a caller gives them; `null` or absent means "use the default". */
@@ -36,13 +36,16 @@ function values(n: number): string {
 export function resolveAlpha(alpha: number | null | undefined): number {
   if (alpha === null || alpha === undefined) return DEFAULT_ALPHA;
   if (!(alpha > 0 && alpha < 1)) {
-    invalid(`alpha must be a number between 0 and 1, such as 0.05 (got ${alpha})`);
+    refuseParameter(
+      { name: "alpha", allows: "between", low: 0, high: 1 },
+      `alpha must be a number between 0 and 1, such as 0.05 (got ${alpha})`,
+    );
   }
   return alpha;
 }
 
 /** Validates a whole-number lag count from 1 to n − 1, named `name` in the message. */
-export function resolveLagCount(name: string, value: number, n: number): number {
+export function resolveLagCount(name: ParameterName, value: number, n: number): number {
   return requireWholeNumber(
     name,
     value,
@@ -57,7 +60,7 @@ export function resolveLagCount(name: string, value: number, n: number): number 
  * of defaultLags.ts for n values and the season, if any.
  */
 export function resolveLagCountOrDefault(
-  name: string,
+  name: ParameterName,
   value: number | null | undefined,
   n: number,
   season: number | null = null,
@@ -100,7 +103,7 @@ export function resolveLagOptions(series: Series, options: LagOptions = {}): Res
     0,
     maxLag - 1,
     () =>
-      `fittedParams must be a whole number from 0 to ${maxLag - 1}: the test's degrees of freedom are ${maxLag} lags − fittedParams and must be at least 1 (got ${given})`,
+      `fittedParams must be a whole number from 0 to ${maxLag - 1}: the test's degrees of freedom, ${maxLag} lags minus the fitted parameters, must be at least 1 (got ${given})`,
   );
   return {
     maxLag,
@@ -113,17 +116,23 @@ export function resolveLagOptions(series: Series, options: LagOptions = {}): Res
 }
 
 function parseKeyword<T extends string>(
-  name: string,
+  name: ParameterName,
   allowed: readonly T[],
   text: unknown,
   fallback: T,
 ): T {
   if (text === null || text === undefined || text === "") return fallback;
-  if (typeof text !== "string") {
-    invalid(`${name} must be one of ${quoteList(allowed)} (got ${String(text)})`);
+  const found =
+    typeof text === "string"
+      ? allowed.find((word) => word === text.trim().toLowerCase())
+      : undefined;
+  if (found === undefined) {
+    const got = typeof text === "string" ? `"${text}"` : String(text);
+    refuseParameter(
+      { name, allows: "word", words: allowed },
+      `${name} must be one of ${quoteList(allowed)} (got ${got})`,
+    );
   }
-  const found = allowed.find((word) => word === text.trim().toLowerCase());
-  if (found === undefined) invalid(`${name} must be one of ${quoteList(allowed)} (got "${text}")`);
   return found;
 }
 

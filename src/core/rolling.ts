@@ -23,7 +23,7 @@
  */
 import { autocorrelation } from "./autocorrelation";
 import { defaultMaxLag } from "./defaultLags";
-import { invalid, isEcholotError, requireWholeNumber } from "./errors";
+import { isEcholotError, requireWholeNumber, tooShort, type ParameterName } from "./errors";
 import { jointTest } from "./portmanteau";
 import type { Series } from "./types";
 
@@ -51,7 +51,13 @@ export interface RollingCheck {
  */
 const CANCELLATION_LIMIT = 1e-4;
 
-function resolveWhole(name: string, value: number, lo: number, hi: number, what: string): number {
+function resolveWhole(
+  name: ParameterName,
+  value: number,
+  lo: number,
+  hi: number,
+  what: string,
+): number {
   return requireWholeNumber(
     name,
     value,
@@ -65,7 +71,7 @@ export function rollingCheck(series: Series, options: RollingOptions): RollingCh
   const { values, present } = series;
   const length = values.length;
   if (length < 3) {
-    invalid(`a rolling check needs a series of at least 3 rows; this one spans ${length}`);
+    tooShort(`a rolling check needs a series of at least 3 rows; this one spans ${length}`);
   }
   const window = resolveWhole(
     "window",

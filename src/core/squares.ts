@@ -5,7 +5,7 @@
  */
 import { autocorrelation, type Autocorrelation } from "./autocorrelation";
 import { centre } from "./centre";
-import { invalid } from "./errors";
+import { invalid, isEcholotError } from "./errors";
 import { seriesName } from "./seriesName";
 import type { Series } from "./types";
 
@@ -35,9 +35,10 @@ export function squaredDeviationCorrelation(
   try {
     return autocorrelation(squares, maxLag, squares.values);
   } catch (error) {
+    // Only the autocorrelation's refusal (constant squares) is ours to reword; anything else is a bug.
+    if (!isEcholotError(error)) throw error;
     invalid(
       `the squared deviations of ${seriesName(series.label)} are constant (every value is equally far from the mean), so their autocorrelation is undefined`,
     );
-    throw error;
   }
 }

@@ -6,7 +6,6 @@
  * joint test at alpha) or the optional extra checks; this file only words them.
  */
 import {
-  falseAlarmSentence,
   formatLagList,
   formatNumber,
   pPhrase,
@@ -52,7 +51,7 @@ export interface Explanation {
   readonly shape: string;
   readonly colour: string;
   readonly label: string;
-  /** The verdict's reason sentence, as the core wrote it (it ends with the false-alarm note). */
+  /** The verdict's reason, as the core wrote it: its finding, then its note. */
   readonly reason: string;
   readonly falseAlarm: FalseAlarmFigures;
   readonly items: readonly ExplanationItem[];
@@ -80,9 +79,8 @@ export interface ExplainContext {
 }
 
 export function explainVerdict(table: LagTable, context: ExplainContext = {}): Explanation {
-  const { verdict, falseAlarm, alpha } = table;
+  const { verdict, falseAlarm } = table;
   const badge = BADGES[verdict.word];
-  const note = falseAlarmSentence(falseAlarm, alpha);
   const items: ExplanationItem[] = [];
 
   const headline = context.headline;
@@ -91,7 +89,7 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
       ? { topic: "verdict", heading: `${badge.shape} ${badge.word}`, text: verdict.finding }
       : { topic: "verdict", heading: `${badge.shape} ${headline.title}`, text: headline.finding },
   );
-  items.push({ topic: "false-alarms", heading: "False alarms", text: falseAlarmText(table, note) });
+  items.push({ topic: "false-alarms", heading: "False alarms", text: falseAlarmText(table) });
 
   const season = seasonText(table);
   if (season !== undefined) items.push({ topic: "season", heading: "Season", text: season });
@@ -125,14 +123,15 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
   };
 }
 
-function falseAlarmText(table: LagTable, note: string): string {
+/** The verdict's own note (the false-alarm sentence, after any untested seasonal lag), then the corridors. */
+function falseAlarmText(table: LagTable): string {
   const outer = table.rows.filter((r) => r.outer).map((r) => r.lag);
   const corridor = `In the chart the inner corridor (±${formatNumber(table.innerLevel, 3)}) judges one lag on its own; the outer one (±${formatNumber(table.outerLevel, 3)}) holds for all ${table.maxLag} lags together`;
   const outerSentence =
     outer.length === 0
       ? "no lag lies beyond it."
       : `${formatLagList(outer)} ${outer.length === 1 ? "lies" : "lie"} beyond it and ${outer.length === 1 ? "survives" : "survive"} the multiple-lag correction.`;
-  return `${note} ${corridor}: ${outerSentence}`;
+  return `${table.verdict.note} ${corridor}: ${outerSentence}`;
 }
 
 function seasonText(table: LagTable): string | undefined {

@@ -9,6 +9,7 @@ import {
   isEcholotError,
   seriesName,
   type AuditBatch,
+  type EcholotError,
   type LagOptions,
   type Series,
   type VerdictWord,
@@ -38,7 +39,7 @@ import {
   writeSettingsForm,
   type SettingsText,
 } from "./settings";
-import { inLabelWords, markInvalid, settingOfMessage } from "./settingsProblem";
+import { inLabelWords, markInvalid, refusedSetting } from "./settingsProblem";
 import { wireTabs } from "./tabs";
 import { renderAnalysis, renderView, showMessage, type PaneElements } from "./view";
 
@@ -170,7 +171,7 @@ export class PaneController {
       analysis = seriesReport(series, options);
     } catch (error) {
       if (!isEcholotError(error)) throw error;
-      this.refused(error.message);
+      this.refused(error);
       return;
     }
     // Index and analysis change together, so the actions never act on a mismatched pair.
@@ -189,10 +190,10 @@ export class PaneController {
    * A refusal. A refused setting is marked at its field in the label's words, and the last valid
    * result stays on screen; refused data hide the result (it would be of other data).
    */
-  private refused(message: string): void {
-    const setting = settingOfMessage(message);
+  private refused(error: EcholotError): void {
+    const setting = refusedSetting(error);
     const form = this.el.settings;
-    const words = inLabelWords(form, message);
+    const words = inLabelWords(form, error, setting);
     // The last result stays only while it is of the data now given.
     const current = this.analysis !== null && this.shownInput === this.input;
     if (!current) this.hideResult();

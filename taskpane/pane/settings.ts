@@ -2,7 +2,13 @@
  * The settings form as the core's lag options. A blank field means the default; a number is read
  * strictly ("12abc" is refused, not read as 12). Ranges and their messages are the core's.
  */
-import { invalid, parseBandKind, parseTestKind, type LagOptions } from "../../src/core";
+import {
+  parseBandKind,
+  parseTestKind,
+  refuseParameter,
+  type LagOptions,
+  type ParameterName,
+} from "../../src/core";
 
 /** The text of each setting, as the form holds it. */
 export interface SettingsText {
@@ -17,7 +23,7 @@ export interface SettingsText {
   readonly horizon: string;
 }
 
-/** The form's fields by the option name the core's messages start with. */
+/** The form's fields, each named by the core's name for the parameter it sets. */
 export const SETTING_NAMES = [
   "maxLag",
   "season",
@@ -26,14 +32,17 @@ export const SETTING_NAMES = [
   "bandKind",
   "testKind",
   "horizon",
-] as const;
+] as const satisfies readonly ParameterName[];
 export type SettingName = (typeof SETTING_NAMES)[number];
 
-function numberSetting(name: string, text: string): number | null {
+/** The one number reader of the form: blank is the default (null); anything else a finite number. */
+function numberSetting(name: SettingName, text: string): number | null {
   const trimmed = text.trim();
   if (trimmed === "") return null;
   const value = Number(trimmed);
-  if (!Number.isFinite(value)) invalid(`${name} must be a number (got "${text}")`);
+  if (!Number.isFinite(value)) {
+    refuseParameter({ name, allows: "number" }, `${name} must be a number (got "${text}")`);
+  }
   return value;
 }
 

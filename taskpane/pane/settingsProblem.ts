@@ -3,12 +3,13 @@
  * the message), and the core's message speaks the label's own words ("Max lag must be…", never
  * "maxLag must be…"), read from the form's labels so the two can never drift apart.
  */
-import { capitalise } from "../../src/core";
+import { capitalise, type EcholotError } from "../../src/core";
 import { SETTING_NAMES, type SettingName } from "./settings";
 
-/** The setting a core message is about: the option name it starts with, if any. */
-export function settingOfMessage(message: string): SettingName | undefined {
-  return SETTING_NAMES.find((name) => new RegExp(`^${name}\\b`).test(message));
+/** The setting a refusal is about: the parameter it refuses, when the form has a field for it. */
+export function refusedSetting(error: EcholotError): SettingName | undefined {
+  const name = error.parameter?.name;
+  return SETTING_NAMES.find((setting) => setting === name);
 }
 
 function control(form: HTMLFormElement, name: SettingName): HTMLElement | null {
@@ -24,17 +25,16 @@ function labelText(form: HTMLFormElement, name: SettingName): string {
 }
 
 /**
- * The message with every option name in the label's words: capitalised at the start of the
- * sentence, lower case within it ("must be below max lag").
+ * The refusal as the pane says it, a sentence: a refused setting is named by its label ("Max lag
+ * must be…").
  */
-export function inLabelWords(form: HTMLFormElement, message: string): string {
-  let text = message;
-  for (const name of SETTING_NAMES) {
-    const label = labelText(form, name);
-    text = text.replace(new RegExp(`\\b${name}\\b`, "g"), (_match, offset: number) =>
-      offset === 0 ? label : label.charAt(0).toLowerCase() + label.slice(1),
-    );
-  }
+export function inLabelWords(
+  form: HTMLFormElement,
+  error: EcholotError,
+  setting: SettingName | undefined,
+): string {
+  const text =
+    setting === undefined ? error.message : error.messageNaming(labelText(form, setting));
   return capitalise(text);
 }
 

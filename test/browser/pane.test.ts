@@ -172,6 +172,32 @@ describe("the built pane in a browser, standalone", () => {
     expect(await page.isVisible("#batch-panel")).toBe(false);
   });
 
+  it("names a refused setting by its label, whole message, at its own field", async () => {
+    await paste(SERIES_F);
+    const change = async (selector: string, value: string) => {
+      await page.fill(selector, value);
+      await page.dispatchEvent(selector, "change");
+    };
+    const kept = " The result shown is still the one for the last valid settings.";
+    await change("#set-max-lag", "10");
+    await change("#set-fitted", "10");
+    await expect.poll(() => page.getAttribute("#set-fitted", "aria-invalid")).toBe("true");
+    expect(await page.textContent("#settings-problem")).toBe(
+      `Fitted parameters must be a whole number from 0 to 9: the test's degrees of freedom, 10 lags minus the fitted parameters, must be at least 1 (got 10).${kept}`,
+    );
+    expect(await page.getAttribute("#set-max-lag", "aria-invalid")).toBeNull();
+    await change("#set-fitted", "");
+    await change("#set-max-lag", "12abc");
+    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid")).toBe("true");
+    expect(await page.textContent("#settings-problem")).toBe(
+      `Max lag must be a number (got "12abc").${kept}`,
+    );
+    await change("#set-max-lag", "");
+    await expect.poll(() => page.getAttribute("#set-max-lag", "aria-invalid")).toBeNull();
+    expect(await page.isVisible("#settings-problem")).toBe(false);
+    expect(await page.isVisible("#result")).toBe(true);
+  });
+
   it("says what to fix when pasted text holds a word among the numbers", async () => {
     await openDataPanel(page);
     await page.fill("#paste-box", "errors\n1.5\n2\nabc\n4\n5");

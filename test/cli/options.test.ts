@@ -118,7 +118,9 @@ describe("echolot: our own messages for options", () => {
 
   it("--top, --csv and --format are checked with messages that say what to give", () => {
     expect(refused(["batch", DEMO, "--top", "0"])).toMatch(/--top must be a whole number from 1/);
-    expect(refused(["batch", DEMO, "--top", "2.5"])).toMatch(/--top must be a whole number/);
+    expect(refused(["batch", DEMO, "--top", "2.5"])).toBe(
+      'echolot: --top must be a whole number from 1 (got "2.5")',
+    );
     expect(refused(["batch", DEMO, "--csv", "--json"])).toMatch(/give only one of --json, --csv/);
     expect(refused(["batch", DEMO, "--format", "jsonl", "--kept"])).toMatch(
       /--top and --kept .* give them to fdr/,

@@ -127,7 +127,7 @@ describe("runsCheck and normalityCheck flag at the request's alpha", () => {
   });
 
   it("normalityCheck(1..5) (p = e^{−0.352083/2} = 0.83858) flags only at an alpha above its p", () => {
-    // Jarque & Bera's JB of 1..5 is 0.3520833 (test/checks/derived.test.ts); χ²₂'s tail is e^{−JB/2}.
+    // Jarque & Bera's JB of 1..5 is 0.3520833 (test/core/sideChecksDerived.test.ts); χ²₂'s tail is e^{−JB/2}.
     const oneToFive = seriesFromNumbers([1, 2, 3, 4, 5]);
     const plain = normalityCheck(oneToFive);
     expect([plain.alpha, plain.flagged]).toEqual([0.05, false]);

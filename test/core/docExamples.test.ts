@@ -108,6 +108,16 @@ describe("the @example of each core doc comment gives what it shows", () => {
     expect(examples.length).toBeGreaterThanOrEqual(8);
   });
 
+  it("runs every @example tag written in src/core, so none is skipped by the parser", () => {
+    // A plain count of the tag in the sources, independent of the doc-comment parser above.
+    const tags = files.flatMap((file) =>
+      readFileSync(join(CORE, file), "utf8")
+        .split("\n")
+        .flatMap((text, index) => (/@example\b/.test(text) ? [`${file}:${index + 1}`] : [])),
+    );
+    expect(examples.map((example) => `${example.file}:${example.line}`)).toEqual(tags);
+  });
+
   for (const example of examples) {
     const where = `src/core/${example.file}:${example.line}`;
     it(`${where} runs and gives what it shows`, () => {

@@ -142,7 +142,7 @@ describe("batchCheck on the planner's 150 items", () => {
     const kept = batch.rows.filter((row) => row.kept);
     const real = kept.filter((row) => kindOf.get(row.label) !== "sound");
     // Seeded: 13 kept, 11 of them under-reacting or cyclic (2 sound items are the false flags
-    // the step allows for; the rate is asserted by test/calibration/batchAudit.test.ts).
+    // the step allows for; the rate is asserted by test/calibration/batchFalseDiscoveries.test.ts).
     expect(kept.length).toBe(13);
     expect(real.length).toBe(11);
   });

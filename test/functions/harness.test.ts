@@ -30,7 +30,7 @@ import {
   type CellResult,
   type LoadedAddIn,
 } from "./host";
-import { EXTRA_FUNCTIONS } from "./extra-functions";
+import { EXTRA_FUNCTIONS } from "./sideCheckFunctions";
 
 const SEVEN = [
   "SERIESLAGCOV",

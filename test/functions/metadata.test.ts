@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { readFunctionsJson, type FunctionMetadata } from "./host";
-import { EXTRA_FUNCTIONS } from "./extra-functions";
+import { EXTRA_FUNCTIONS } from "./sideCheckFunctions";
 
 type Kind = "series" | "number" | "keyword";
 const SIGNATURES: Record<string, readonly [string, Kind][]> = {

@@ -72,3 +72,13 @@ export function readColumnCsv(relativePath: string): { label: string; values: Fl
 export function readSeriesF(): Float64Array {
   return readColumnCsv("series-f.csv").values;
 }
+
+/**
+ * A value of derived-values.tsv (15 significant digits, evaluated from its published definition
+ * with decimal.js by scripts/derivedDigits.ts) by its key.
+ */
+export function derivedValue(key: string): number {
+  const row = readTsv("derived-values.tsv").find((record) => record.key === key);
+  if (row === undefined) throw new Error(`derived-values.tsv has no key ${key}`);
+  return Number(row.value_15sig);
+}

@@ -32,6 +32,18 @@ describe("explainVerdict(table)", () => {
     );
   });
 
+  it("takes the verdict in its parts: the finding first, the note in the false-alarm paragraph", () => {
+    // Season 12 with 12 lags leaves lag 24 untested: the note starts with that remark.
+    const table = lagTable(seriesF(), { maxLag: 12, season: 12 });
+    const { finding, note, reason } = table.verdict;
+    expect(note).toMatch(/^Seasonal lag 24 not tested: 12 lags tested, /);
+    expect(reason).toBe(`${finding} ${note}`);
+    const explained = explainVerdict(table);
+    expect(explained.items.find((i) => i.topic === "verdict")?.text).toBe(finding);
+    const falseAlarms = explained.items.find((i) => i.topic === "false-alarms")?.text ?? "";
+    expect(falseAlarms.startsWith(`${note} In the chart the inner corridor`)).toBe(true);
+  });
+
   it("leads with the verdict and its reason and always ends with the screening caution", () => {
     const table = lagTable(seriesF(), {});
     const explained = explainVerdict(table);

@@ -89,7 +89,7 @@ describe("theory by simulation, n = 20,000 (Box, Jenkins & Reinsel, ch. 3)", () 
 describe("size under the null (seeded simulation)", () => {
   it("jointTest(Ljung–Box, iid normal, n 200, K 10) rejects by χ² in 3.5–6.5% and 4–6% of lags cross the noise band", () => {
     // The textbook χ² reference of Ljung–Box, as SERIESPORTMANTEAU and the lag table's cumulative
-    // column report it (the verdict's own reference is tested in test/calibration).
+    // column report it (the verdict's own reference is tested in verdictSize.test.ts).
     const random = seededRandom(200_010);
     // 20,000 replications: the rate's binomial standard error is 0.15%, so the check measures
     // the test's size rather than the luck of one seed (at 2,000 it is 0.5%, and Ljung–Box's

@@ -17,7 +17,7 @@ import {
 import { seededRandom } from "../../src/sim/random";
 import { expectClose } from "../helpers/expectClose";
 import { readSeriesF } from "../helpers/fixtures";
-import { EXTRA_FUNCTIONS } from "./extra-functions";
+import { EXTRA_FUNCTIONS } from "./sideCheckFunctions";
 import {
   columnRange,
   loadBuiltFunctions,

@@ -272,7 +272,14 @@ const CASES: readonly BadCase[] = [
     id: "SERIESPORTMANTEAU",
     args: [columnRange([1, 2]), 1],
     code: NA,
-    says: "a portmanteau test needs at least 3 values; the series has 2 values",
+    says: "a lag analysis needs at least 3 values; the series has 2 values",
+  },
+  {
+    what: "lags as text",
+    id: "SERIESPORTMANTEAU",
+    args: [F, "12"],
+    code: VALUE,
+    says: 'lags must be a number, not text (got the text "12"); type it without quotes',
   },
   {
     what: "an error value as an argument",
@@ -306,4 +313,32 @@ describe("bad input through the built functions", () => {
       expect(message).not.toMatch(/EcholotError|got undefined|\bNaN\b|\[object|\bat .*\.js/);
     });
   }
+});
+
+describe("SERIESPORTMANTEAU names the core's maxLag as its own argument, lags", () => {
+  it("gives a 2-value series one message, with lags or without", () => {
+    const short = columnRange([1, 2]);
+    const refusals = [[short], [short, 1], [short, 5], [short, null, 0]].map((args) => {
+      const result = addIn.invoke("SERIESPORTMANTEAU", ...args);
+      if (!("error" in result)) throw new Error("SERIESPORTMANTEAU of 2 values gave a value");
+      return result.error;
+    });
+    for (const error of refusals) {
+      expect({ code: error.code, message: error.message }).toEqual({
+        code: NA,
+        message: "a lag analysis needs at least 3 values; the series has 2 values",
+      });
+    }
+  });
+
+  it("refuses lags out of range with the core's message, the argument named lags", () => {
+    for (const lags of [0, 70, 2.5]) {
+      const result = addIn.invoke("SERIESPORTMANTEAU", F, lags);
+      if (!("error" in result)) throw new Error(`lags ${lags} gave a value`);
+      expect(result.error.code).toBe(VALUE);
+      expect(result.error.message).toBe(
+        `lags must be a whole number from 1 to 69 (the series has 70 values)`,
+      );
+    }
+  });
 });

@@ -183,7 +183,21 @@ const CASES: readonly BadCase[] = [
     id: "SERIESROLLCHECK",
     args: [F],
     code: VALUE,
-    says: "window must be a whole number from 3 to 70",
+    says: "window was not given (omitted, or a blank cell): give the rows per window, a whole number from 3 to the length of the series",
+  },
+  {
+    what: "a blank cell as the window",
+    id: "SERIESROLLCHECK",
+    args: [F, ""],
+    code: VALUE,
+    says: "window was not given (omitted, or a blank cell): give the rows per window",
+  },
+  {
+    what: "two values",
+    id: "SERIESROLLCHECK",
+    args: [columnRange([1, 2]), 3],
+    code: NA,
+    says: "a rolling check needs a series of at least 3 rows; this one spans 2",
   },
   {
     what: "lags as many as the window",

@@ -1,8 +1,19 @@
 /**
- * Values derived in high-precision arithmetic from published definitions and data (METHODS.md in
- * the shared reference notes; "derived from <data> with the published formula" beside each), the
- * printed Holton exercise, the Benjamini–Hochberg worked example (from memory) and the theoretical
- * ACF/PACF of AR(1), MA(1) and AR(2) processes.
+ * The lag table, its tests and the distribution tails against values derived from published
+ * definitions and data: test/fixtures/derived-values.tsv, each value evaluated with decimal.js at
+ * 110 digits by scripts/derivedDigits.ts (`npm run fixtures`) and kept to 15 significant digits,
+ * the definition named beside each check. Also the printed Holton exercise, the
+ * Benjamini–Hochberg worked example (from memory) and the theoretical ACF/PACF of AR(1), MA(1)
+ * and AR(2) processes.
+ *
+ * Tolerances, from what double precision allows (unit roundoff u = 1.1e−16): the fixture's
+ * rounding to 15 digits is at most 5e−15 relative; each statistic here is a few compensated sums
+ * over 70 values and a few divisions and roots, which stay within a few tens of u (measured: at
+ * most 1.5e−14). So a statistic must agree to STATISTIC (relative 1e−13). A partial
+ * autocorrelation is a difference of order-one terms (|φ_kk| ≤ 1), so its error is absolute:
+ * PARTIAL (1e−14 absolute). A p-value magnifies the statistic's relative error by the χ² tail's
+ * condition number x·f(x)/Q(x), about 10 here and under 100 in the far tails checked, so
+ * P_VALUE is relative 1e−12.
  */
 import { describe, expect, it } from "vitest";
 import {
@@ -22,102 +33,102 @@ import {
   seriesFromNumbers,
 } from "../../src/core";
 import { expectClose, expectWithin } from "../helpers/expectClose";
-import { readSeriesF } from "../helpers/fixtures";
+import { derivedValue, readSeriesF, readTsv } from "../helpers/fixtures";
 
-/** Half a unit in the last decimal of a value printed with `decimals` decimals. */
-const half = (decimals: number) => 0.5 * 10 ** -decimals;
+/** Relative, for a statistic (see the header). */
+const STATISTIC = { rel: 1e-13 } as const;
+/** Absolute, for a partial autocorrelation or a correlation (see the header). */
+const PARTIAL = { abs: 1e-14 } as const;
+/** Relative, for a p-value or a tail probability (see the header). */
+const P_VALUE = { rel: 1e-12 } as const;
 
 const seriesF = seriesFromNumbers(readSeriesF(), "yield");
 
 describe("Series F derived values (derived from series-f.csv with the published formulas)", () => {
   it("lagTable(Series F) gives the Durbin–Levinson partials φ_11..φ_66", () => {
-    // Derived from Series F with the Durbin–Levinson recursion (Levinson 1947; Durbin 1960),
-    // printed to 6 decimals.
-    const expected = [-0.389878, 0.179705, 0.002264, -0.044277, -0.069406, -0.120622];
+    // Derived from Series F with the Durbin–Levinson recursion (Levinson 1947; Durbin 1960)
+    // on r_k = Σ d_t d_{t−k} / Σ d_t²: derived-values.tsv seriesF.partial.k.
     const table = lagTable(seriesF, { maxLag: 6 });
-    expected.forEach((value, i) => {
+    for (let k = 1; k <= 6; k++) {
       expectClose(
-        table.rows[i]?.partial ?? NaN,
-        value,
-        { abs: half(6) },
-        `Series F φ_${i + 1}${i + 1}`,
+        table.rows[k - 1]?.partial ?? NaN,
+        derivedValue(`seriesF.partial.${k}`),
+        PARTIAL,
+        `Series F φ_${k}${k}`,
       );
-    });
+    }
   });
 
   it("lagTable(Series F, bartlett) gives se_1..se_6 with the sum stopping at k−1", () => {
-    // Derived from Series F with Bartlett's (1946) formula se_k = √((1 + 2Σ_{j<k} r_j²)/n).
-    const expected = [0.11952, 0.13649, 0.14586, 0.14852, 0.149, 0.1499];
+    // Derived from Series F with Bartlett's (1946) formula se_k = √((1 + 2Σ_{j<k} r_j²)/n):
+    // derived-values.tsv seriesF.bartlettSe.k.
     const table = lagTable(seriesF, { maxLag: 6, bandKind: "bartlett" });
-    expected.forEach((value, i) => {
+    for (let k = 1; k <= 6; k++) {
       expectClose(
-        table.rows[i]?.standardError ?? NaN,
-        value,
-        { abs: half(5) },
-        `Series F Bartlett se_${i + 1}`,
+        table.rows[k - 1]?.standardError ?? NaN,
+        derivedValue(`seriesF.bartlettSe.${k}`),
+        STATISTIC,
+        `Series F Bartlett se_${k}`,
       );
-    });
+    }
   });
 
   it("robustVariances(Series F) gives n·v̂_1..n·v̂_5", () => {
     // Derived from Series F with v̂_k = Σ_{t>k} d_t² d_{t−k}² / c0² (Taylor 1984; Lobato,
-    // Nankervis & Savin 2001), printed to 6 significant digits.
-    const expected: readonly (readonly [number, number])[] = [
-      [0.852773, 6],
-      [0.755375, 6],
-      [1.13766, 5],
-      [0.51132, 5],
-      [1.01231, 5],
-    ];
+    // Nankervis & Savin 2001): derived-values.tsv seriesF.robustNv.k.
     const ac = autocorrelation(seriesF, 5);
     const v = robustVariances(ac, 5);
     const table = lagTable(seriesF, { maxLag: 5, bandKind: "robust" });
-    expected.forEach(([value, decimals], i) => {
-      expectClose(70 * (v[i] as number), value, { abs: half(decimals) }, `Series F n·v̂_${i + 1}`);
+    for (let k = 1; k <= 5; k++) {
+      const value = derivedValue(`seriesF.robustNv.${k}`);
+      expectClose(70 * (v[k - 1] as number), value, STATISTIC, `Series F n·v̂_${k}`);
       // The robust band's standard error is √v̂_k.
-      const se = table.rows[i]?.standardError ?? NaN;
-      expectClose(70 * se * se, value, { abs: half(decimals) }, `Series F robust se_${i + 1}² · n`);
-    });
-  });
-
-  it("lagTable(Series F, robust) gives Q*(5) = 24.08594 and p = 0.000209", () => {
-    // Derived from Series F with the diagonal robust Q* = Σ r_k²/v̂_k (Lobato, Nankervis &
-    // Savin 2001), χ²_5.
-    const { joint } = lagTable(seriesF, { maxLag: 5, testKind: "robust" });
-    expectClose(joint.q, 24.08594, { abs: half(5) }, "Series F robust Q*(5)");
-    expect(joint.df).toBe(5);
-    expectClose(joint.p, 0.000209, { abs: half(6) }, "Series F robust Q*(5) p");
-  });
-
-  it("lagTable(Series F) gives the cumulative Ljung–Box Q(1), Q(5), Q(10), Q(12) and p", () => {
-    // Derived from Series F with Q = n(n+2)Σ r_k²/(n−k) (Ljung & Box 1978), χ²_k.
-    const expected: readonly (readonly [number, number, number])[] = [
-      [1, 11.10298, 0.000862],
-      [5, 21.14423, 0.000761],
-      [10, 21.59155, 0.017326],
-      [12, 23.03468, 0.027433],
-    ];
-    const table = lagTable(seriesF, { maxLag: 12 });
-    for (const [k, q, p] of expected) {
-      const row = table.rows[k - 1];
-      expectClose(row?.jointQ ?? NaN, q, { abs: half(5) }, `Series F Ljung–Box Q(${k})`);
-      expect(row?.jointDf, `Series F Ljung–Box df at ${k}`).toBe(k);
-      expectClose(row?.jointP ?? NaN, p, { abs: half(6) }, `Series F Ljung–Box p(${k})`);
+      const se = table.rows[k - 1]?.standardError ?? NaN;
+      expectClose(70 * se * se, value, STATISTIC, `Series F robust se_${k}² · n`);
     }
   });
 
-  it("lagTable(Series F, box-pierce) gives Q(10) = 20.44501 and p = 0.025314", () => {
-    // Derived from Series F with Q = nΣ r_k² (Box & Pierce 1970), χ²_10.
-    const { joint } = lagTable(seriesF, { maxLag: 10, testKind: "box-pierce" });
-    expectClose(joint.q, 20.44501, { abs: half(5) }, "Series F Box–Pierce Q(10)");
-    expectClose(joint.p, 0.025314, { abs: half(6) }, "Series F Box–Pierce p(10)");
+  it("lagTable(Series F, robust) gives Q*(5) = 24.0859376217913 and p = 0.000209010515353692", () => {
+    // Derived from Series F with the diagonal robust Q* = Σ r_k²/v̂_k (Lobato, Nankervis &
+    // Savin 2001) and its χ²_5 upper tail Q(5/2, Q*/2): derived-values.tsv seriesF.robustQ.5,
+    // seriesF.robustP.5.
+    const { joint } = lagTable(seriesF, { maxLag: 5, testKind: "robust" });
+    expectClose(joint.q, derivedValue("seriesF.robustQ.5"), STATISTIC, "Series F robust Q*(5)");
+    expect(joint.df).toBe(5);
+    expectClose(joint.p, derivedValue("seriesF.robustP.5"), P_VALUE, "Series F robust Q*(5) p");
   });
 
-  it("lagTable(Series F, squares) gives McLeod–Li Q(5) = 4.627404 and p = 0.46302", () => {
-    // Derived from Series F: Ljung–Box on the squared deviations (McLeod & Li 1983), χ²_5.
+  it("lagTable(Series F) gives the cumulative Ljung–Box Q(1), Q(5), Q(10), Q(12) and p", () => {
+    // Derived from Series F with Q = n(n+2)Σ r_k²/(n−k) (Ljung & Box 1978) and its χ²_k upper
+    // tail: derived-values.tsv seriesF.ljungBoxQ.k, seriesF.ljungBoxP.k.
+    const table = lagTable(seriesF, { maxLag: 12 });
+    for (const k of [1, 5, 10, 12]) {
+      const row = table.rows[k - 1];
+      const q = derivedValue(`seriesF.ljungBoxQ.${k}`);
+      expectClose(row?.jointQ ?? NaN, q, STATISTIC, `Series F Ljung–Box Q(${k})`);
+      expect(row?.jointDf, `Series F Ljung–Box df at ${k}`).toBe(k);
+      const p = derivedValue(`seriesF.ljungBoxP.${k}`);
+      expectClose(row?.jointP ?? NaN, p, P_VALUE, `Series F Ljung–Box p(${k})`);
+    }
+  });
+
+  it("lagTable(Series F, box-pierce) gives Q(10) = 20.4450074361762 and p = 0.0253137696344665", () => {
+    // Derived from Series F with Q = nΣ r_k² (Box & Pierce 1970) and its χ²_10 upper tail:
+    // derived-values.tsv seriesF.boxPierceQ.10, seriesF.boxPierceP.10.
+    const { joint } = lagTable(seriesF, { maxLag: 10, testKind: "box-pierce" });
+    const q = derivedValue("seriesF.boxPierceQ.10");
+    expectClose(joint.q, q, STATISTIC, "Series F Box–Pierce Q(10)");
+    const p = derivedValue("seriesF.boxPierceP.10");
+    expectClose(joint.p, p, P_VALUE, "Series F Box–Pierce p(10)");
+  });
+
+  it("lagTable(Series F, squares) gives McLeod–Li Q(5) = 4.62740364258968 and p = 0.463020286169123", () => {
+    // Derived from Series F: Ljung–Box on the squared deviations (McLeod & Li 1983), χ²_5:
+    // derived-values.tsv seriesF.mcleodLiQ.5, seriesF.mcleodLiP.5.
     const { joint } = lagTable(seriesF, { maxLag: 5, testKind: "squares" });
-    expectClose(joint.q, 4.627404, { abs: half(6) }, "Series F McLeod–Li Q(5)");
-    expectClose(joint.p, 0.46302, { abs: half(5) }, "Series F McLeod–Li p(5)");
+    const q = derivedValue("seriesF.mcleodLiQ.5");
+    expectClose(joint.q, q, STATISTIC, "Series F McLeod–Li Q(5)");
+    expectClose(joint.p, derivedValue("seriesF.mcleodLiP.5"), P_VALUE, "Series F McLeod–Li p(5)");
   });
 
   it("lagTable(Series F, squares, fittedParams 2) keeps the McLeod–Li df at K", () => {
@@ -155,21 +166,19 @@ describe("Holton, Value-at-Risk, exercise 4.17 solution (printed)", () => {
 
 describe("false-alarm chances (derived with the binomial upper tail)", () => {
   it("binomialUpperTail(m, K, 0.05) gives the chance of m or more chance crossings", () => {
-    // Derived: Σ_{j≥m} C(K,j) α^j (1−α)^{K−j}, α = 0.05, printed to 6 decimals.
-    const expected: readonly (readonly [number, number, number])[] = [
-      [1, 10, 0.401263],
-      [2, 10, 0.086138],
-      [2, 20, 0.26416],
-      [3, 20, 0.075484],
-      [2, 24, 0.339183],
-      [2, 40, 0.600936],
-      [4, 40, 0.13815],
-    ];
-    for (const [m, trials, p] of expected) {
+    // Derived: Σ_{j≥m} C(K,j) α^j (1−α)^{K−j}, α = 0.05 (the double 0.05 is 5.6e−17 above it
+    // relative, which moves the tail by at most K times that, far inside P_VALUE):
+    // derived-values.tsv binomialTail.m.K.
+    const cases = readTsv("derived-values.tsv")
+      .map((row) => (row.key ?? "").split("."))
+      .filter(([name]) => name === "binomialTail")
+      .map(([, m, trials]) => [Number(m), Number(trials)] as const);
+    expect(cases.length, "binomial cases in derived-values.tsv").toBe(7);
+    for (const [m, trials] of cases) {
       expectClose(
         binomialUpperTail(m, trials, 0.05),
-        p,
-        { abs: half(6) },
+        derivedValue(`binomialTail.${m}.${trials}`),
+        P_VALUE,
         `P(X ≥ ${m}), X ~ Bin(${trials}, 0.05)`,
       );
     }
@@ -242,19 +251,25 @@ describe("distribution tails (derived in high precision from the published defin
       { rel: 1e-13 },
       "sf(18.307038…; 10)",
     );
-    expectClose(chiSquareUpperTail(50, 10), 2.6690834249e-7, { rel: 5e-11 }, "sf(50; 10)");
-    expectClose(chiSquareUpperTail(200, 20), 1.12534739608e-31, { rel: 5e-12 }, "sf(200; 20)");
+    // Q(5, 25) and Q(10, 100): derived-values.tsv chiSquareTail.50.10, chiSquareTail.200.20.
+    const near = derivedValue("chiSquareTail.50.10");
+    expectClose(chiSquareUpperTail(50, 10), near, P_VALUE, "sf(50; 10)");
+    const far = derivedValue("chiSquareTail.200.20");
+    expectClose(chiSquareUpperTail(200, 20), far, P_VALUE, "sf(200; 20)");
   });
 
-  it("normalUpperTail(8) gives Φᶜ(8) = 6.22096057427e−16 directly, not as 1 − Φ", () => {
-    // Derived: erfc(8/√2)/2 in high precision; 1 − Φ(8) in double would be 6.7e−16 or 0.
-    expectClose(normalUpperTail(8), 6.22096057427e-16, { rel: 5e-12 }, "Φᶜ(8)");
+  it("normalUpperTail(8) gives Φᶜ(8) = 6.22096057427178e−16 directly, not as 1 − Φ", () => {
+    // Derived: ½ erfc(8/√2) = ½(1 − P(½, 32)) in high precision (derived-values.tsv
+    // normalTail.8); 1 − Φ(8) in double would be 6.7e−16 or 0.
+    expectClose(normalUpperTail(8), derivedValue("normalTail.8"), P_VALUE, "Φᶜ(8)");
   });
 
-  it("normalQuantile gives z_0.975 = 1.959964 and z_0.995 = 2.575829", () => {
-    // Derived (and printed: Fisher 1925 Table 1 gives 1.959964), 6 decimals.
-    expectClose(normalQuantile(0.975), 1.959964, { abs: half(6) }, "z_0.975");
-    expectClose(normalQuantile(0.995), 2.575829, { abs: half(6) }, "z_0.995");
+  it("normalQuantile gives z_0.975 = 1.95996398454005 and z_0.995 = 2.57582930354890", () => {
+    // Derived: normal-quantiles.tsv ours_50sig (Φ(z) = ½ + ½P(½, z²/2) inverted in decimal.js,
+    // scripts/referenceDigits.ts); printed: Fisher 1925 Table 1 gives 1.959964.
+    const ours = new Map(readTsv("normal-quantiles.tsv").map((row) => [row.p, row.ours_50sig]));
+    expectClose(normalQuantile(0.975), Number(ours.get("0.975")), STATISTIC, "z_0.975");
+    expectClose(normalQuantile(0.995), Number(ours.get("0.995")), STATISTIC, "z_0.995");
   });
 
   it("chiSquareUpperTail(x, df) reports a p below the smallest double as the bound 1e-300, never 0", () => {
@@ -285,19 +300,19 @@ describe("theoretical ACF → partialAutocorrelation (Box, Jenkins & Reinsel, ch
     }
   });
 
-  it("partialAutocorrelation of an MA(1) θ = 0.5 gives 0.4, −0.190476, 0.094118, −0.046921", () => {
-    // Theory: MA(1) x_t = e_t + θe_{t−1}: ρ_1 = θ/(1+θ²) = 0.4, 0 beyond; partials printed to 6
-    // decimals (METHODS.md, derived).
+  it("partialAutocorrelation of an MA(1) θ = 0.5 gives 0.4, −0.190476…, 0.0941176…, −0.0469208…", () => {
+    // Theory: MA(1) x_t = e_t + θe_{t−1}: ρ_1 = θ/(1+θ²) = 0.4, 0 beyond; partials by
+    // Durbin–Levinson in decimal.js (derived-values.tsv ma1.partial.k).
     const rho = [1, 0.5 / 1.25, 0, 0, 0];
     const partials = partialAutocorrelation(rho);
-    [0.4, -0.190476, 0.094118, -0.046921].forEach((value, i) => {
+    for (let k = 1; k <= 4; k++) {
       expectClose(
-        partials[i] as number,
-        value,
-        { abs: half(6) },
-        `MA(1) θ = 0.5, φ_${i + 1}${i + 1}`,
+        partials[k - 1] as number,
+        derivedValue(`ma1.partial.${k}`),
+        PARTIAL,
+        `MA(1) θ = 0.5, φ_${k}${k}`,
       );
-    });
+    }
     // Closed form (Box, Jenkins & Reinsel): φ_kk = −(−θ)^k (1−θ²)/(1−θ^{2(k+1)}).
     for (let k = 1; k <= 4; k++) {
       const closed = (-((-0.5) ** k) * (1 - 0.25)) / (1 - 0.5 ** (2 * (k + 1)));
@@ -310,17 +325,17 @@ describe("theoretical ACF → partialAutocorrelation (Box, Jenkins & Reinsel, ch
     }
   });
 
-  it("partialAutocorrelation of an AR(2) (0.5, 0.3) gives (0.714286, 0.3, 0, …)", () => {
-    // Theory: Yule–Walker ρ_1 = φ1/(1−φ2), ρ_k = φ1ρ_{k−1} + φ2ρ_{k−2}: 0.714286, 0.657143,
-    // 0.542857 (printed to 6 decimals); partials (ρ_1, φ2, 0, …).
+  it("partialAutocorrelation of an AR(2) (0.5, 0.3) gives (5/7, 0.3, 0, …)", () => {
+    // Theory: Yule–Walker ρ_1 = φ1/(1−φ2), ρ_k = φ1ρ_{k−1} + φ2ρ_{k−2}, in decimal.js
+    // (derived-values.tsv ar2.rho.k); partials (ρ_1, φ2, 0, …).
     const rho = [1, 0.5 / 0.7];
     for (let k = 2; k <= 8; k++)
       rho.push(0.5 * (rho[k - 1] as number) + 0.3 * (rho[k - 2] as number));
-    [0.714286, 0.657143, 0.542857].forEach((value, i) => {
-      expectClose(rho[i + 1] as number, value, { abs: half(6) }, `AR(2) ρ_${i + 1}`);
-    });
+    for (let k = 1; k <= 3; k++) {
+      expectClose(rho[k] as number, derivedValue(`ar2.rho.${k}`), PARTIAL, `AR(2) ρ_${k}`);
+    }
     const partials = partialAutocorrelation(rho);
-    expectClose(partials[0] as number, 0.714286, { abs: half(6) }, "AR(2) φ_11");
+    expectClose(partials[0] as number, derivedValue("ar2.rho.1"), PARTIAL, "AR(2) φ_11");
     expectClose(partials[1] as number, 0.3, { abs: 1e-14 }, "AR(2) φ_22");
     for (let k = 3; k <= 8; k++) {
       expectClose(partials[k - 1] as number, 0, { abs: 1e-14 }, `AR(2) φ_${k}${k}`);

@@ -8,6 +8,13 @@ const numbers = (count: number) => Array.from({ length: count }, (_, i) => Strin
 const column = (name: string, cells: readonly string[]) =>
   csvFile(name, ["value", ...cells].join("\n") + "\n");
 
+/** Two columns of 30 numbers each. */
+const twoColumns = () =>
+  csvFile(
+    "two.csv",
+    ["a,b", ...numbers(30).map((x, i) => `${x},${(i * 11) % 7}`)].join("\n") + "\n",
+  );
+
 interface BadCase {
   readonly name: string;
   readonly args: () => string[];
@@ -68,7 +75,8 @@ const cases: readonly BadCase[] = [
   {
     name: "df ≤ 0",
     args: () => ["check", SERIES_F, "--lags", "3", "--fitted", "3"],
-    message: /--fitted must be a whole number from 0 to 2/,
+    message:
+      /^echolot: --fitted must be a whole number from 0 to 2: the test's degrees of freedom, 3 lags minus the fitted parameters, must be at least 1 \(got 3\)$/m,
   },
   {
     name: "negative fitted",
@@ -89,6 +97,27 @@ const cases: readonly BadCase[] = [
     name: "season 1",
     args: () => ["check", SERIES_F, "--season", "1"],
     message: /--season must be a whole number from 2 to 69/,
+  },
+  {
+    name: "audit horizon 0",
+    args: () => ["audit", SERIES_F, "--horizon", "0"],
+    message:
+      /^echolot: --horizon must be a whole number from 1 to 69, the number of periods ahead/m,
+  },
+  {
+    name: "audit lags below the horizon",
+    args: () => ["audit", SERIES_F, "--horizon", "3", "--lags", "2"],
+    message: /^echolot: --lags must be a whole number from the horizon 3 to 69 /m,
+  },
+  {
+    name: "batch lags beyond every series",
+    args: () => ["batch", twoColumns(), "--lags", "40"],
+    message: /^echolot: --lags must be a whole number from 1 to 29 \(the series has 30 values\)/m,
+  },
+  {
+    name: "batch lags beyond every series, in worker threads",
+    args: () => ["batch", twoColumns(), "--lags", "40", "--workers", "2"],
+    message: /^echolot: --lags must be a whole number from 1 to 29 \(the series has 30 values\)/m,
   },
   {
     name: "unknown column",

@@ -1,8 +1,16 @@
 /**
- * The side checks against values derived from published definitions and data (METHODS.md in the
- * shared reference notes, "derived from <data> with the published formula" beside each), the
- * NIST e-Handbook's printed coin example for the runs test, and the Benjamini–Hochberg worked
- * example (from memory).
+ * The side checks against values derived from published definitions and data:
+ * test/fixtures/derived-values.tsv, each value evaluated with decimal.js at 110 digits by
+ * scripts/derivedDigits.ts (`npm run fixtures`) and kept to 15 significant digits, the definition
+ * named beside each check; the NIST e-Handbook's printed coin example for the runs test, and the
+ * Benjamini–Hochberg worked example (from memory).
+ *
+ * Tolerances, from what double precision allows (unit roundoff u = 1.1e−16): the fixture's
+ * rounding to 15 digits is at most 5e−15 relative, and each statistic is a few compensated sums
+ * over at most 70 values, a small least-squares fit or a few divisions and roots, within a few
+ * tens of u (measured: at most 1.5e−14, for Engle's LM at q = 1, whose R² of 0.0018 is a
+ * difference). So a statistic must agree to STATISTIC (relative 1e−13); a p-value magnifies that
+ * by the χ² tail's condition number x·f(x)/Q(x), under 10 here, so P_VALUE is relative 1e−12.
  */
 import { describe, expect, it } from "vitest";
 import {
@@ -20,68 +28,51 @@ import {
   volatilityCheck,
   autocorrelation,
 } from "../../src/core";
+import { solveLinear } from "../../scripts/derivedDigits";
 import { Exact, exactOfDouble, type ExactNumber } from "../helpers/exact";
 import { expectClose } from "../helpers/expectClose";
-import { readSeriesF } from "../helpers/fixtures";
+import { derivedValue, readSeriesF } from "../helpers/fixtures";
 
-/** Half a unit in the last decimal of a value printed with `decimals` decimals. */
-const half = (decimals: number) => 0.5 * 10 ** -decimals;
+/** Relative, for a statistic (see the header). */
+const STATISTIC = { rel: 1e-13 } as const;
+/** Relative, for a p-value (see the header). */
+const P_VALUE = { rel: 1e-12 } as const;
 
 const seriesF = seriesFromNumbers(readSeriesF(), "yield");
 const oneToFive = seriesFromNumbers([1, 2, 3, 4, 5]);
 
 describe("volatilityCheck(Series F): Engle's LM test (derived from series-f.csv with Engle's 1982 formula, T = n − q)", () => {
-  it("q = 1 gives T·R² = 0.122090 over 69 rows, p 0.72678", () => {
+  // T·R² of s_t = d_t² on 1, s_{t−1}, …, s_{t−q}, R² = 1 − RSS/TSS about the mean, β from the
+  // normal equations, and the χ²_q upper tail: derived-values.tsv seriesF.engleLm.q, engleP.q.
+  it("q = 1 gives T·R² = 0.122090191469692 over 69 rows, p 0.726778472775317", () => {
     const check = volatilityCheck(seriesF, { lags: 1 });
     expect(check.rows, "Series F q = 1: rows T = n − q").toBe(69);
-    expectClose(check.lm, 0.12209, { abs: half(6) }, "Series F LM(q = 1)");
-    expectClose(check.p, 0.72678, { abs: half(5) }, "Series F LM(q = 1) p");
+    expectClose(check.lm, derivedValue("seriesF.engleLm.1"), STATISTIC, "Series F LM(q = 1)");
+    expectClose(check.p, derivedValue("seriesF.engleP.1"), P_VALUE, "Series F LM(q = 1) p");
     expect(check.df, "df = q").toBe(1);
   });
 
-  it("q = 4 gives T·R² = 5.603300 over 66 rows, p 0.23080", () => {
+  it("q = 4 gives T·R² = 5.60329977538057 over 66 rows, p 0.230797463552424", () => {
     const check = volatilityCheck(seriesF, { lags: 4 });
     expect(check.rows, "Series F q = 4: rows T = n − q").toBe(66);
-    expectClose(check.lm, 5.6033, { abs: half(6) }, "Series F LM(q = 4)");
-    expectClose(check.p, 0.2308, { abs: half(5) }, "Series F LM(q = 4) p");
+    expectClose(check.lm, derivedValue("seriesF.engleLm.4"), STATISTIC, "Series F LM(q = 4)");
+    expectClose(check.p, derivedValue("seriesF.engleP.4"), P_VALUE, "Series F LM(q = 4) p");
   });
 
-  it("q = 5 reports McLeod–Li Q(5) = 4.627404, p 0.46302 beside the LM test", () => {
-    // Derived from Series F: Ljung–Box on the squared deviations (McLeod & Li 1983).
+  it("q = 5 reports McLeod–Li Q(5) = 4.62740364258968, p 0.463020286169123 beside the LM test", () => {
+    // Derived from Series F: Ljung–Box on the squared deviations (McLeod & Li 1983), χ²_5:
+    // derived-values.tsv seriesF.mcleodLiQ.5, seriesF.mcleodLiP.5.
     const check = volatilityCheck(seriesF, { lags: 5 });
-    expectClose(check.mcleodLiQ, 4.627404, { abs: half(6) }, "Series F McLeod–Li Q(5)");
-    expectClose(check.mcleodLiP, 0.46302, { abs: half(5) }, "Series F McLeod–Li p(5)");
+    const q = derivedValue("seriesF.mcleodLiQ.5");
+    expectClose(check.mcleodLiQ, q, STATISTIC, "Series F McLeod–Li Q(5)");
+    const p = derivedValue("seriesF.mcleodLiP.5");
+    expectClose(check.mcleodLiP, p, P_VALUE, "Series F McLeod–Li p(5)");
   });
 
-  it("the LM equals T·R² of the same regression evaluated exactly (decimal.js, normal equations)", () => {
-    // High-precision evaluation of Engle's published definition on Series F, q = 2: the normal
-    // equations solved in 60-digit arithmetic, R² = 1 − RSS/TSS about the mean.
-    const q = 2;
-    const x = Array.from(readSeriesF(), exactOfDouble);
-    const mean = x.reduce((s, v) => s.plus(v), new Exact(0)).dividedBy(x.length);
-    const s = x.map((v) => v.minus(mean).pow(2));
-    const rows: ExactNumber[][] = [];
-    const y: ExactNumber[] = [];
-    for (let t = q; t < s.length; t++) {
-      rows.push([new Exact(1), s[t - 1] as ExactNumber, s[t - 2] as ExactNumber]);
-      y.push(s[t] as ExactNumber);
-    }
-    const beta = solveNormalEquations(rows, y);
-    const ybar = y.reduce((a, v) => a.plus(v), new Exact(0)).dividedBy(y.length);
-    let rss = new Exact(0);
-    let tss = new Exact(0);
-    rows.forEach((row, i) => {
-      const fit = row.reduce((a, v, j) => a.plus(v.times(beta[j] as ExactNumber)), new Exact(0));
-      rss = rss.plus((y[i] as ExactNumber).minus(fit).pow(2));
-      tss = tss.plus((y[i] as ExactNumber).minus(ybar).pow(2));
-    });
-    const exactLm = new Exact(1).minus(rss.dividedBy(tss)).times(rows.length).toNumber();
-    expectClose(
-      volatilityCheck(seriesF, { lags: q }).lm,
-      exactLm,
-      { rel: 1e-12 },
-      "Series F LM(q = 2) vs exact",
-    );
+  it("q = 2 gives T·R² = 0.710706731243737, p 0.700925716390424", () => {
+    const check = volatilityCheck(seriesF, { lags: 2 });
+    expectClose(check.lm, derivedValue("seriesF.engleLm.2"), STATISTIC, "Series F LM(q = 2)");
+    expectClose(check.p, derivedValue("seriesF.engleP.2"), P_VALUE, "Series F LM(q = 2) p");
   });
 });
 
@@ -93,11 +84,18 @@ describe("biasCheck: Newey–West long-run variance (derived with Newey & West's
     expectClose(check.t, 3 / Math.sqrt(0.56), { rel: 1e-14 }, "1..5 t = x̄/se");
   });
 
-  it("biasCheck(Series F, hacLags 3) gives LRV 89.02310 and se 1.127723", () => {
-    // Derived from series-f.csv.
+  it("biasCheck(Series F, hacLags 3) gives LRV 89.0231049562682 and se 1.12772276833999", () => {
+    // Derived from series-f.csv: LRV = γ̂_0 + 2Σ_{j≤3} (1 − j/4) γ̂_j, se = √(LRV/n)
+    // (derived-values.tsv seriesF.neweyWestLrv.3, seriesF.neweyWestSe.3).
     const check = biasCheck(seriesF, { hacLags: 3 });
-    expectClose(check.longRunVariance, 89.0231, { abs: half(5) }, "Series F LRV(L = 3)");
-    expectClose(check.se, 1.127723, { abs: half(6) }, "Series F se(x̄)(L = 3)");
+    const lrv = derivedValue("seriesF.neweyWestLrv.3");
+    expectClose(check.longRunVariance, lrv, STATISTIC, "Series F LRV(L = 3)");
+    expectClose(
+      check.se,
+      derivedValue("seriesF.neweyWestSe.3"),
+      STATISTIC,
+      "Series F se(x̄)(L = 3)",
+    );
     expect(check.hacLags).toBe(3);
   });
 
@@ -117,15 +115,16 @@ describe("biasCheck: Newey–West long-run variance (derived with Newey & West's
 });
 
 describe("runs about the median (Wald & Wolfowitz 1940; NIST e-Handbook §1.3.5.13)", () => {
-  it("runsTest(the coin example) counts 9 runs of 11 heads and 9 tails, Z = −0.882303", () => {
+  it("runsTest(the coin example) counts 9 runs of 11 heads and 9 tails, Z = −0.882303091205556", () => {
     // Printed (NIST/SEMATECH e-Handbook §1.3.5.13): H H T T H T H H H H T H H T T T T T H H has
-    // 9 runs, 11 heads, 9 tails; R̄ = 10.9, s_R = 2.153455 and Z derived with the printed formula.
+    // 9 runs, 11 heads, 9 tails; R̄ = 10.9; s_R and Z derived with the printed formula
+    // (derived-values.tsv coin.runsSd, coin.runsZ).
     const coin = "HHTTHTHHHHTHHTTTTTHH".split("").map((c) => c === "H");
     const result = runsTest(coin);
     expect([result.runs, result.above, result.below], "runs, heads, tails").toEqual([9, 11, 9]);
     expectClose(result.expected, 10.9, { rel: 1e-14 }, "coin R̄");
-    expectClose(result.sd, 2.153455, { abs: half(6) }, "coin s_R");
-    expectClose(result.z, -0.882303, { abs: half(6) }, "coin Z");
+    expectClose(result.sd, derivedValue("coin.runsSd"), STATISTIC, "coin s_R");
+    expectClose(result.z, derivedValue("coin.runsZ"), STATISTIC, "coin Z");
   });
 
   it("runsCheck(series) counts runs about the median, leaving out values equal to it", () => {
@@ -142,20 +141,22 @@ describe("runs about the median (Wald & Wolfowitz 1940; NIST e-Handbook §1.3.5.
 });
 
 describe("normalityCheck: Jarque–Bera (derived with Jarque & Bera's formula)", () => {
-  it("normalityCheck(1..5) gives JB = 0.3520833", () => {
+  it("normalityCheck(1..5) gives JB = 0.352083333333333", () => {
+    // (n/6)(S² + (K − 3)²/4) with S = 0, K = 1.7: derived-values.tsv oneToFive.jarqueBera.
     const check = normalityCheck(oneToFive);
-    expectClose(check.jb, 0.3520833, { abs: half(7) }, "1..5 JB");
+    expectClose(check.jb, derivedValue("oneToFive.jarqueBera"), STATISTIC, "1..5 JB");
     expectClose(check.skewness, 0, { abs: 1e-15 }, "1..5 skewness");
     expectClose(check.kurtosis, 1.7, { rel: 1e-14 }, "1..5 kurtosis");
     expectClose(check.p, Math.exp(-check.jb / 2), { rel: 1e-13 }, "1..5 p = e^{−JB/2}");
   });
 
-  it("normalityCheck(Series F) gives S = −0.073823627, K = 3.0250963, JB = 0.065419474", () => {
-    // Derived from series-f.csv.
+  it("normalityCheck(Series F) gives S = −0.0738236265819983, K = 3.02509626335988, JB = 0.0654194735877135", () => {
+    // Derived from series-f.csv: S = m₃/m₂^{3/2}, K = m₄/m₂², m_j = Σ d^j/n
+    // (derived-values.tsv seriesF.skewness, seriesF.kurtosis, seriesF.jarqueBera).
     const check = normalityCheck(seriesF);
-    expectClose(check.skewness, -0.073823627, { abs: half(9) }, "Series F skewness");
-    expectClose(check.kurtosis, 3.0250963, { abs: half(7) }, "Series F kurtosis");
-    expectClose(check.jb, 0.065419474, { abs: half(9) }, "Series F JB");
+    expectClose(check.skewness, derivedValue("seriesF.skewness"), STATISTIC, "Series F skewness");
+    expectClose(check.kurtosis, derivedValue("seriesF.kurtosis"), STATISTIC, "Series F kurtosis");
+    expectClose(check.jb, derivedValue("seriesF.jarqueBera"), STATISTIC, "Series F JB");
   });
 });
 
@@ -176,12 +177,15 @@ describe("Benjamini–Hochberg across series (the 15 p-values of the 1995 worked
 });
 
 describe("forecastAudit and its joint test of later lags", () => {
-  it("laterLagsTest(r, n, 1) is exactly Ljung–Box: Series F Q(10) = 21.59155, p 0.017326", () => {
-    // Derived from Series F (Ljung & Box 1978): METHODS' Ljung–Box Q(10) and p.
+  it("laterLagsTest(r, n, 1) is exactly Ljung–Box: Series F Q(10) = 21.5915487230517, p 0.0173261341886925", () => {
+    // Derived from Series F with Q = n(n+2)Σ r_k²/(n−k) (Ljung & Box 1978) and its χ²_10 tail
+    // (derived-values.tsv seriesF.ljungBoxQ.10, seriesF.ljungBoxP.10).
     const ac = autocorrelation(seriesF, 10);
     const test = laterLagsTest(ac.correlation, ac.n, 1);
-    expectClose(test.q, 21.59155, { abs: half(5) }, "Series F later-lags test h = 1, Q(10)");
-    expectClose(test.p, 0.017326, { abs: half(6) }, "Series F later-lags test h = 1, p");
+    const q = derivedValue("seriesF.ljungBoxQ.10");
+    expectClose(test.q, q, STATISTIC, "Series F later-lags test h = 1, Q(10)");
+    const p = derivedValue("seriesF.ljungBoxP.10");
+    expectClose(test.p, p, P_VALUE, "Series F later-lags test h = 1, p");
     expectClose(
       test.q,
       lagTable(seriesF, { maxLag: 10 }).joint.q,
@@ -266,57 +270,3 @@ describe("leastSquares(design, rows, columns, y)", () => {
     expect(Array.from(y)).toEqual([1, 2, 2]);
   });
 });
-
-/** Solves A x = b in exact arithmetic by Gaussian elimination with partial pivoting. */
-function solveLinear(
-  a: readonly (readonly ExactNumber[])[],
-  b: readonly ExactNumber[],
-): ExactNumber[] {
-  const n = b.length;
-  const m = a.map((row, i) => [...row, b[i] as ExactNumber]);
-  for (let col = 0; col < n; col++) {
-    let pivot = col;
-    for (let r = col + 1; r < n; r++) {
-      if ((m[r]?.[col] as ExactNumber).abs().gt((m[pivot]?.[col] as ExactNumber).abs())) pivot = r;
-    }
-    [m[col], m[pivot]] = [m[pivot] as ExactNumber[], m[col] as ExactNumber[]];
-    const head = m[col] as ExactNumber[];
-    for (let r = col + 1; r < n; r++) {
-      const row = m[r] as ExactNumber[];
-      const factor = (row[col] as ExactNumber).dividedBy(head[col] as ExactNumber);
-      for (let c = col; c <= n; c++)
-        row[c] = (row[c] as ExactNumber).minus(factor.times(head[c] as ExactNumber));
-    }
-  }
-  const x: ExactNumber[] = new Array<ExactNumber>(n);
-  for (let r = n - 1; r >= 0; r--) {
-    const row = m[r] as ExactNumber[];
-    let s = row[n] as ExactNumber;
-    for (let c = r + 1; c < n; c++) s = s.minus((row[c] as ExactNumber).times(x[c] as ExactNumber));
-    x[r] = s.dividedBy(row[r] as ExactNumber);
-  }
-  return x;
-}
-
-/** β from the normal equations XᵀX β = Xᵀy, in exact arithmetic. */
-function solveNormalEquations(
-  rows: readonly (readonly ExactNumber[])[],
-  y: readonly ExactNumber[],
-): ExactNumber[] {
-  const p = rows[0]?.length ?? 0;
-  const xtx = Array.from({ length: p }, (_, i) =>
-    Array.from({ length: p }, (_, j) =>
-      rows.reduce(
-        (s, row) => s.plus((row[i] as ExactNumber).times(row[j] as ExactNumber)),
-        new Exact(0),
-      ),
-    ),
-  );
-  const xty = Array.from({ length: p }, (_, i) =>
-    rows.reduce(
-      (s, row, t) => s.plus((row[i] as ExactNumber).times(y[t] as ExactNumber)),
-      new Exact(0),
-    ),
-  );
-  return solveLinear(xtx, xty);
-}

@@ -1,8 +1,8 @@
 /**
  * The side checks by simulation (seeded; src/sim): the forecast audit on h-step errors of an
  * optimal forecast, and the volatility check's size and power. The calibrated promises of the
- * verdict, the batch and the audit are in test/calibration. Rates are over replications; each bound is stated with its
- * origin beside it.
+ * verdict, the batch and the audit are in the other files of test/calibration. Rates are over
+ * replications; each bound is stated with its origin beside it.
  */
 import { describe, expect, it } from "vitest";
 import { forecastAudit, lagTable, seriesFromNumbers, volatilityCheck } from "../../src/core";
