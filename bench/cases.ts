@@ -221,7 +221,7 @@ export function growthCase(series: Series): CaseResult {
  * Where the transform path overtakes the direct one, at n = 2^16: both timed at a ladder of K.
  * ratio = the automatic choice's time over the faster path's, at worst over the ladder; the
  * detail gives the measured crossover and the step cost the timings imply (FFT_STEP_COST in
- * autocovariance.ts is set from it).
+ * lagProductSums.ts is set from it).
  */
 export function crossoverCase(series: Series): CaseResult {
   const n = 65_536;

@@ -18,7 +18,7 @@ import { batchJson } from "./jsonBatch";
 import {
   formatOption,
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   LONG_OPTIONS,
   RANKED_OPTIONS,
   READ_OPTIONS,
@@ -51,7 +51,7 @@ export async function runBatch({ files, values }: ParsedCommand): Promise<string
       "--top and --kept rank after the false-discovery step, which --format jsonl leaves to echolot fdr: give them to fdr",
     );
   }
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   // Options every series shares are refused here, once, not in each worker.
   resolveAlpha(options.alpha);
   parseTestKind(options.testKind);

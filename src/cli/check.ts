@@ -8,7 +8,7 @@
  */
 import { headlineOf, lagTable, needsRobustReading, robustOptions, type Headline } from "../core";
 import { jointSpanText, lagTableText } from "../report";
-import { sideChecks, sideChecksText } from "../report/sideChecksText";
+import { sideChecks, sideChecksText } from "../report/sideChecks";
 import { readingFrom } from "./csv";
 import { UsageError } from "./errors";
 import { readOneSeries } from "./input";
@@ -16,7 +16,7 @@ import { releaseBetweenSteps } from "./memory";
 import { checkJson, toJsonText } from "./json";
 import {
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   READ_OPTIONS,
   textOption,
   type ParsedCommand,
@@ -30,7 +30,7 @@ export async function runCheck({ files, values }: ParsedCommand): Promise<string
     throw new UsageError(
       "check needs a CSV file: echolot check FILE.csv (or - for standard input)",
     );
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   const { series, source } = await readOneSeries(
     readingFrom(file, values),
     textOption(values, "column"),

@@ -17,7 +17,7 @@ import type {
   VerdictWord,
 } from "../core";
 import { isPValueBound } from "../core";
-import type { SideChecks } from "../report/sideChecksText";
+import type { SideChecks } from "../report/sideChecks";
 
 /**
  * The JSON format's version. 2: batch and audit entries in ranked order with `rank`, `position`
@@ -30,6 +30,7 @@ export interface LagJson {
   readonly corr: number;
   readonly partial: number;
   readonly band: number;
+  /** The JSON key as published; the core's `crossesBand` (beyond the one-lag corridor). */
   readonly beyond: boolean;
   readonly z: number;
   readonly pLag: number;
@@ -84,6 +85,7 @@ export interface LagTableJson {
   readonly falseAlarm: {
     readonly tested: number;
     readonly expected: number;
+    /** JSON keys as published; the core's `crossings` and `crossingLags`. */
     readonly beyond: number;
     readonly beyondLags: readonly number[];
     readonly chance: number;
@@ -111,7 +113,7 @@ export function lagTableJson(table: LagTable): LagTableJson {
       corr: row.correlation,
       partial: row.partial,
       band: row.band,
-      beyond: row.beyond,
+      beyond: row.crossesBand,
       z: row.z,
       pLag: row.pLag,
       pSidak: row.pSidak,
@@ -136,8 +138,8 @@ export function lagTableJson(table: LagTable): LagTableJson {
     falseAlarm: {
       tested: table.falseAlarm.tested,
       expected: table.falseAlarm.expected,
-      beyond: table.falseAlarm.beyond,
-      beyondLags: table.falseAlarm.beyondLags,
+      beyond: table.falseAlarm.crossings,
+      beyondLags: table.falseAlarm.crossingLags,
       chance: table.falseAlarm.chance,
     },
     verdict: { word: table.verdict.word, reason: table.verdict.reason },

@@ -171,6 +171,7 @@ export interface AuditLagJson {
   readonly z: number;
   readonly pLag: number;
   readonly counted: boolean;
+  /** The JSON key as published; the core's `crossesBand`. */
   readonly beyond: boolean;
   readonly outer: boolean;
 }
@@ -292,7 +293,7 @@ function auditEntry({
       z: row.z,
       pLag: row.pLag,
       counted: row.counted,
-      beyond: row.beyond,
+      beyond: row.crossesBand,
       outer: row.outer,
     })),
   };

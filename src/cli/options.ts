@@ -20,44 +20,70 @@ import { UsageError } from "./errors";
 /** An option's kind and, for a string option, how usage names its value. */
 type Spec = { readonly type: "boolean" } | { readonly type: "string"; readonly value: string };
 
-/** Every option of the command line, by name, with how usage names its value. */
-const OPTIONS: Readonly<Record<string, Spec>> = {
-  column: { type: "string", value: "NAME|N" },
+/** The options that say how a file is read, taken by every command that reads one. */
+const READ_SPECS = {
+  delimiter: { type: "string", value: ",|;|tab" },
+  decimal: { type: "string", value: ".|," },
+  na: { type: "string", value: "WORD,…" },
+  percent: { type: "boolean" },
+  "no-header": { type: "boolean" },
+} as const satisfies Readonly<Record<string, Spec>>;
+
+/** The options of the lag table and verdict. */
+const LAG_SPECS = {
   lags: { type: "string", value: "K" },
   season: { type: "string", value: "M" },
   fitted: { type: "string", value: "P" },
   alpha: { type: "string", value: "A" },
   bands: { type: "string", value: "noise|bartlett|robust" },
   test: { type: "string", value: "ljung-box|box-pierce|robust|squares" },
-  horizon: { type: "string", value: "H" },
-  json: { type: "boolean" },
-  format: { type: "string", value: "FORMAT" },
-  csv: { type: "boolean" },
-  top: { type: "string", value: "N" },
-  kept: { type: "boolean" },
-  reasons: { type: "boolean" },
-  out: { type: "string", value: "FILE" },
-  force: { type: "boolean" },
-  batch: { type: "boolean" },
-  delimiter: { type: "string", value: ",|;|tab" },
-  decimal: { type: "string", value: ".|," },
-  na: { type: "string", value: "WORD,…" },
-  percent: { type: "boolean" },
-  "no-header": { type: "boolean" },
+} as const satisfies Readonly<Record<string, Spec>>;
+
+/** The long-format columns. */
+const LONG_SPECS = {
   id: { type: "string", value: "COL" },
   time: { type: "string", value: "COL" },
   value: { type: "string", value: "COL" },
+} as const satisfies Readonly<Record<string, Spec>>;
+
+/** What to show of a ranked table, and where to write it (batch, audit, fdr). */
+const RANKED_SPECS = {
+  top: { type: "string", value: "N" },
+  kept: { type: "boolean" },
+  reasons: { type: "boolean" },
+  csv: { type: "boolean" },
+  out: { type: "string", value: "FILE" },
+  force: { type: "boolean" },
+} as const satisfies Readonly<Record<string, Spec>>;
+
+/** The options a command takes on their own: the column, the audit's horizon, output and work. */
+const SINGLE_SPECS = {
+  column: { type: "string", value: "NAME|N" },
+  horizon: { type: "string", value: "H" },
+  json: { type: "boolean" },
+  format: { type: "string", value: "FORMAT" },
+  batch: { type: "boolean" },
   workers: { type: "string", value: "N" },
+} as const satisfies Readonly<Record<string, Spec>>;
+
+/** Every option by name, for parsing and usage: the groups above together. */
+const OPTIONS: Readonly<Record<string, Spec>> = {
+  ...READ_SPECS,
+  ...LAG_SPECS,
+  ...LONG_SPECS,
+  ...RANKED_SPECS,
+  ...SINGLE_SPECS,
 };
 
-/** The options that say how a file is read, taken by every command that reads one. */
-export const READ_OPTIONS = ["delimiter", "decimal", "na", "percent", "no-header"] as const;
-/** The options of the lag table and verdict. */
-export const LAG_OPTIONS = ["lags", "season", "fitted", "alpha", "bands", "test"] as const;
-/** The long-format columns. */
-export const LONG_OPTIONS = ["id", "time", "value"] as const;
-/** What to show of a ranked table, and where to write it (batch, audit, fdr). */
-export const RANKED_OPTIONS = ["top", "kept", "reasons", "csv", "out", "force"] as const;
+function namesOf<T extends object>(specs: T): readonly (keyof T & string)[] {
+  return Object.keys(specs) as (keyof T & string)[];
+}
+
+/** Each group's names, for the commands' lists of the options they take. */
+export const READ_OPTIONS = namesOf(READ_SPECS);
+export const LAG_OPTIONS = namesOf(LAG_SPECS);
+export const LONG_OPTIONS = namesOf(LONG_SPECS);
+export const RANKED_OPTIONS = namesOf(RANKED_SPECS);
 
 export type OptionValues = Readonly<Record<string, string | boolean | undefined>>;
 
@@ -208,7 +234,8 @@ export function wholeNumberOption(
   );
 }
 
-export function lagOptionsFrom(values: OptionValues): LagOptions {
+/** The lag table and verdict options from the command's flags (`--lags`, `--season`, …). */
+export function lagOptionsFromFlags(values: OptionValues): LagOptions {
   return {
     maxLag: numberOption("lags", values.lags) ?? null,
     season: numberOption("season", values.season) ?? null,

@@ -9,7 +9,7 @@
  * never half-written.
  */
 import { basename } from "node:path";
-import { batchCheck, isEcholotError, type LagOptions, type Series } from "../core";
+import { batchCheck, isEcholotError, seriesName, type LagOptions, type Series } from "../core";
 import {
   BADGES,
   batchReportHtml,
@@ -23,7 +23,7 @@ import { UsageError } from "./errors";
 import { readManySeries, readOneSeries } from "./input";
 import {
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   READ_OPTIONS,
   textOption,
   type ParsedCommand,
@@ -42,7 +42,7 @@ export async function runReport({ files, values }: ParsedCommand): Promise<strin
   if (out === undefined || out.trim() === "") {
     throw new UsageError("report needs --out FILE.html: where to write the report");
   }
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   const meta = { made: new Date(), version: ECHOLOT_VERSION };
   const name = file === "-" ? "standard input" : basename(file);
   const chosen = textOption(values, "column");
@@ -58,7 +58,8 @@ export async function runReport({ files, values }: ParsedCommand): Promise<strin
     } else {
       const series = many.series[0];
       if (series === undefined) throw new UsageError(`${name} has no series to report on`);
-      single = { series, label: series.label === "" ? "column 1" : series.label };
+      const column = many.columns?.[0]?.index ?? 0;
+      single = { series, label: seriesName(series.label, "cell", { column }) };
     }
   } else {
     const one = await readOneSeries(readingFrom(file, values), chosen);
@@ -69,8 +70,7 @@ export async function runReport({ files, values }: ParsedCommand): Promise<strin
     const report = seriesReport(single.series, options);
     html = seriesReportHtml(report, { ...meta, source: `${name}, column “${single.label}”` });
     const badge = BADGES[report.headline.word];
-    const shown = report.table.label === "" ? "the series" : report.table.label;
-    said = `${shown}, ${badge.shape} ${report.headline.title}`;
+    said = `${single.label}, ${badge.shape} ${report.headline.title}`;
   }
   writeOutFile(out, html!, values.force === true, [file]);
   return `read: ${source}\nwrote ${out}: ${said!}`;
@@ -87,7 +87,7 @@ function batchReport(
       return seriesReport(series, options);
     } catch (error) {
       if (!isEcholotError(error)) throw error;
-      return { label: batch.rows[i]?.label ?? `series ${i + 1}`, reason: error.message };
+      return { label: seriesName(series.label, "cell", { item: i }), reason: error.message };
     }
   });
   const first = items.find((item) => "table" in item);

@@ -15,6 +15,7 @@ import {
   cellReader,
   isEcholotError,
   lagTable,
+  seriesName,
   type Dialect,
   type LagOptions,
   type Series,
@@ -31,7 +32,7 @@ import { UsageError } from "./errors";
 import { readManySeries, readOneSeries } from "./input";
 import {
   LAG_OPTIONS,
-  lagOptionsFrom,
+  lagOptionsFromFlags,
   READ_OPTIONS,
   textOption,
   type OptionValues,
@@ -120,7 +121,7 @@ export async function readWorkbookData(
   const firstRow = reading.header ? 1 : 0;
   if (!batch) {
     const one = await readOneSeries(reading, textOption(values, "column"));
-    const label = one.series.label === "" ? `column ${one.column.index + 1}` : one.series.label;
+    const label = seriesName(one.series.label, "cell", { column: one.column.index });
     return {
       cells,
       firstRow,
@@ -131,7 +132,7 @@ export async function readWorkbookData(
   const many = await readManySeries(reading, values);
   const columns: WorkbookColumn[] = many.series.map((series, i) => {
     const column = many.columns?.[i]?.index ?? i;
-    const label = series.label === "" ? `column ${column + 1}` : series.label;
+    const label = seriesName(series.label, "cell", { column });
     return { label, column, analysis: { series } };
   });
   if (columns.length === 0) {
@@ -220,7 +221,7 @@ export async function runWorkbook({ files, values }: ParsedCommand): Promise<str
   if (batch && values.column !== undefined) {
     throw new UsageError("--batch reads every column of numbers; --column is for one");
   }
-  const options = lagOptionsFrom(values);
+  const options = lagOptionsFromFlags(values);
   const data = await readWorkbookData(file, values, batch);
   const plan = workbookPlan(data, options, {
     batch,

@@ -10,8 +10,8 @@
  *   Nankervis & Savin (2001), Int. Econ. Rev. 42:187–205.
  * Output index k−1 holds lag k. Cost O(K) for noise and Bartlett, O(n·K) for robust.
  */
-import type { Autocorrelation } from "./autocovariance";
-import { lagProductSums } from "./autocovariance";
+import type { Autocorrelation } from "./autocorrelation";
+import { lagProductSums } from "./lagProductSums";
 import type { BandKind } from "./types";
 
 /** v̂_k = Σ_{t>k} d_t² d_{t−k}² / c₀² for k = 1..K (index k−1). O(n·K). */

@@ -28,6 +28,7 @@ import type { Headline, Reading } from "./headline";
 import { expectedFalseFlags } from "./falseAlarms";
 import { benjaminiHochberg } from "./multiplicity";
 import { parseTestKind, resolveAlpha, type LagOptions } from "./options";
+import { seriesName } from "./seriesName";
 import type { Series, TestKind, VerdictWord } from "./types";
 import type { ReferencedP } from "./verdictReference";
 
@@ -98,7 +99,7 @@ export interface BatchCheck extends BatchSettings {
 
 /** A series' name among many: its label, or "series i" (counting from 1) when it has none. */
 export function batchLabel(series: Series, index: number): string {
-  return series.label === "" ? `series ${index + 1}` : series.label;
+  return seriesName(series.label, "cell", { item: index });
 }
 
 export function batchCheck(seriesList: readonly Series[], options: LagOptions = {}): BatchCheck {

@@ -3,7 +3,7 @@
  * series' own dependence? The mean x̄ with the Newey–West HAC standard error
  * (Newey & West 1987, Econometrica 55:703–708):
  *   LRV = γ̂_0 + 2 Σ_{j=1..L} (1 − j/(L+1)) γ̂_j,   se(x̄) = √(LRV/n),   t = x̄/se,
- * with the divide-by-n autocovariances γ̂_j of autocovariance.ts and Bartlett weights, which keep
+ * with the divide-by-n autocovariances γ̂_j of autocorrelation.ts and Bartlett weights, which keep
  * LRV ≥ 0. The p is two-sided, from the fixed-b reference (Kiefer & Vogelsang 2005, Econometric
  * Theory 21:1130–1164): the standard normal over-rejects badly in short series (measured on white
  * noise, 20,000 runs each: 9.1% at n 25, 7.3% at n 52, 6.4% at n 104 for a 5% test), because the
@@ -18,9 +18,10 @@
  * √(γ̂_0/n). With gaps each γ̂_j sums over the pairs present; a lag with no pair adds nothing.
  * Cost O(n·L).
  */
-import { autocorrelation } from "./autocovariance";
+import { autocorrelation } from "./autocorrelation";
 import { normalTwoSided } from "./distributions";
-import { invalid, isEcholotError, requireWholeNumber, seriesName } from "./errors";
+import { invalid, isEcholotError, requireWholeNumber } from "./errors";
+import { seriesName } from "./seriesName";
 import { requireValues, resolveAlpha } from "./options";
 import type { Series } from "./types";
 

@@ -54,7 +54,7 @@ export interface CorridorCrossings {
   /** Lags counted with a defined z. */
   readonly tested: number;
   /** Counted lags beyond the inner corridor. */
-  readonly beyondLags: number[];
+  readonly crossingLags: number[];
 }
 
 /**
@@ -70,18 +70,24 @@ export function corridorCrossings(
   const { innerLevel, outerLevel } = levels;
   const maxLag = correlation.length - 1;
   const lags: VerdictLag[] = [];
-  const beyondLags: number[] = [];
+  const crossingLags: number[] = [];
   let tested = 0;
   for (let k = 1; k <= maxLag; k++) {
     const r = correlation[k] as number;
     const z = r / (se[k - 1] as number);
     const counted = k >= firstLag;
-    const beyond = counted && Math.abs(z) > innerLevel;
+    const crossesBand = counted && Math.abs(z) > innerLevel;
     if (counted && Number.isFinite(z)) tested++;
-    if (beyond) beyondLags.push(k);
-    lags.push({ lag: k, correlation: r, z, beyond, outer: counted && Math.abs(z) > outerLevel });
+    if (crossesBand) crossingLags.push(k);
+    lags.push({
+      lag: k,
+      correlation: r,
+      z,
+      crossesBand,
+      outer: counted && Math.abs(z) > outerLevel,
+    });
   }
-  return { lags, tested, beyondLags };
+  return { lags, tested, crossingLags };
 }
 
 /** The largest |z_k| = |r_k / se_k| over lags 1..K with a finite z (0 when none). */

@@ -18,6 +18,7 @@ import { centre } from "./centre";
 import { normalQuantile } from "./distributions";
 import { invalid, tooShort } from "./errors";
 import { resolveAlpha, resolveLagCountOrDefault } from "./options";
+import { seriesName } from "./seriesName";
 import { CompensatedSum } from "./sums";
 import type { Series } from "./types";
 
@@ -35,7 +36,8 @@ export interface CrossLag {
   readonly pairs: number;
   /** Noise band half-width z_{1−α/2}/√n. */
   readonly band: number;
-  readonly beyond: boolean;
+  /** |r_k| beyond the band. */
+  readonly crossesBand: boolean;
 }
 
 export interface CrossCorrelation {
@@ -50,10 +52,6 @@ export interface CrossCorrelation {
   readonly rows: readonly CrossLag[];
 }
 
-function named(series: Series, fallback: string): string {
-  return series.label === "" ? fallback : `${fallback} ("${series.label}")`;
-}
-
 export function crossCorrelation(
   x: Series,
   y: Series,
@@ -63,7 +61,7 @@ export function crossCorrelation(
   const ey = cellExtent(y);
   if (ex.cells !== ey.cells) {
     invalid(
-      `${named(x, "x")} covers ${ex.cells} rows and ${named(y, "y")} ${ey.cells}: give two ranges of the same size, one row per period in both`,
+      `${seriesName(x.label, "message", { argument: "x" })} covers ${ex.cells} rows and ${seriesName(y.label, "message", { argument: "y" })} ${ey.cells}: give two ranges of the same size, one row per period in both`,
     );
   }
   // The pair's positions, in cell coordinates, from the later start to the earlier end.
@@ -106,7 +104,7 @@ export function crossCorrelation(
   ] as const) {
     if (!(c.sumSquares > 0)) {
       invalid(
-        `${named(s, name)} is constant over the periods where both series have a value: its cross-correlation is undefined`,
+        `${seriesName(s.label, "message", { argument: name })} is constant over the periods where both series have a value: its cross-correlation is undefined`,
       );
     }
   }
@@ -126,7 +124,7 @@ export function crossCorrelation(
       pairs += (present[t + shiftX] as number) & (present[t + shiftY] as number);
     }
     const correlation = pairs > 0 ? sum.value / scale : NaN;
-    rows.push({ lag: k, correlation, pairs, band, beyond: Math.abs(correlation) > band });
+    rows.push({ lag: k, correlation, pairs, band, crossesBand: Math.abs(correlation) > band });
   }
   return {
     labelX: x.label,

@@ -97,11 +97,6 @@ export function tooShort(message: string): never {
   throw new EcholotError("short", message);
 }
 
-/** How a message names a series: `the series "Label"`, or `the series` when it has no label. */
-export function seriesName(label: string): string {
-  return label ? `the series "${label}"` : "the series";
-}
-
 export function isEcholotError(error: unknown): error is EcholotError {
   return error instanceof EcholotError;
 }

@@ -20,10 +20,10 @@ export interface FalseAlarmNote {
   /** Crossings expected by chance, K·α. */
   readonly expected: number;
   /** Lags that crossed the band. */
-  readonly beyond: number;
+  readonly crossings: number;
   /** The lags that crossed, ascending. */
-  readonly beyondLags: readonly number[];
-  /** Chance that pure noise gives at least `beyond` crossings. */
+  readonly crossingLags: readonly number[];
+  /** Chance that pure noise gives at least `crossings` crossings. */
   readonly chance: number;
 }
 
@@ -40,13 +40,13 @@ export function expectedFalseFlags(count: number, alpha: number): number {
 export function falseAlarmNote(
   tested: number,
   alpha: number,
-  beyondLags: readonly number[],
+  crossingLags: readonly number[],
 ): FalseAlarmNote {
   return {
     tested,
     expected: expectedFalseFlags(tested, alpha),
-    beyond: beyondLags.length,
-    beyondLags,
-    chance: binomialUpperTail(beyondLags.length, tested, alpha),
+    crossings: crossingLags.length,
+    crossingLags,
+    chance: binomialUpperTail(crossingLags.length, tested, alpha),
   };
 }

@@ -21,7 +21,7 @@
  * m (raised to include the seasonal lags where n allows), so as many lags are counted as in the
  * noise check. Cost O(n·K + K³) plus the reference's draws.
  */
-import { autocorrelation } from "./autocovariance";
+import { autocorrelation } from "./autocorrelation";
 import { standardErrors } from "./bands";
 import { auditLevels, type AuditLevels } from "./auditReference";
 import { defaultMaxLag, untestedSeasonalLags } from "./defaultLags";
@@ -148,8 +148,8 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
     { innerLevel, outerLevel: levels.outerLevel },
     h,
   );
-  const { tested, beyondLags } = crossings;
-  const rows: AuditLag[] = crossings.lags.map(({ lag, correlation, z, beyond, outer }) => {
+  const { tested, crossingLags } = crossings;
+  const rows: AuditLag[] = crossings.lags.map(({ lag, correlation, z, crossesBand, outer }) => {
     const s = se[lag - 1] as number;
     return {
       lag,
@@ -158,12 +158,12 @@ export function forecastAudit(series: Series, options: ForecastAuditOptions): Fo
       band: innerLevel * s,
       z,
       pLag: normalTwoSided(z),
-      beyond,
+      crossesBand,
       outer,
       counted: lag >= h,
     };
   });
-  const falseAlarm = falseAlarmNote(tested, alpha, beyondLags);
+  const falseAlarm = falseAlarmNote(tested, alpha, crossingLags);
   const testName = h === 1 ? "Ljung–Box" : `Ljung–Box (adjusted for the ${h}-step horizon)`;
   const dependence = judge({
     n: ac.n,

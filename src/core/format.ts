@@ -104,3 +104,8 @@ export function referencedPPhrase(rp: ReferencedP): string {
   if (rp.bound) return `p < ${rp.p >= 0.001 ? formatP(rp.p) : rp.p.toExponential(0)} ${from}`;
   return `${pPhrase(rp.p)} ${from}`;
 }
+
+/** The text with its first character in upper case, for a phrase or message that opens a sentence. */
+export function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}

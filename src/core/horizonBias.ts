@@ -3,7 +3,7 @@
  *
  * The errors of an optimal h-step forecast are MA(h−1), so their long-run variance needs only the
  * autocovariances of lags 0..h−1 (a rectangular kernel):
- *   V = γ̂_0 + 2 Σ_{j=1}^{h−1} γ̂_j   (γ̂ divided by n, autocovariance.ts),   t = x̄ / √(V/n),
+ *   V = γ̂_0 + 2 Σ_{j=1}^{h−1} γ̂_j   (γ̂ divided by n, autocorrelation.ts),   t = x̄ / √(V/n),
  * with the small-sample correction of Harvey, Leybourne & Newbold (1997, Int. J. Forecasting
  * 13:281–291), t* = t · √((n + 1 − 2h + h(h−1)/n) / n), referred to Student's t with n − 1 df.
  * The rectangular V can be negative in a sample; then the plain variance γ̂_0 is used instead, and

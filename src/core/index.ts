@@ -1,12 +1,15 @@
 /** The public face of the core: pure TypeScript, no Office, no DOM, no file system. */
 export * from "./errors";
+export * from "./seriesName";
 export * from "./types";
 export * from "./sums";
 export * from "./intake";
 export * from "./cells";
 export * from "./textCells";
 export * from "./centre";
-export * from "./autocovariance";
+export * from "./lagProductSums";
+export * from "./pairCounts";
+export * from "./autocorrelation";
 export * from "./partial";
 export * from "./distributions";
 export * from "./bands";

@@ -10,7 +10,8 @@
  * Nothing is silently dropped: dropping a value would shift every lag after it. O(n), one pass
  * over the cells, no copy of them.
  */
-import { EcholotError, invalid, seriesName, tooShort } from "./errors";
+import { EcholotError, invalid, tooShort } from "./errors";
+import { seriesName } from "./seriesName";
 import type { Series } from "./types";
 
 /** How a position is named in messages, from its 0-based index in the list given. */
@@ -71,12 +72,12 @@ export function seriesFromCells(
     );
   }
   if (rows === 1 && columns > 1) {
-    return readSeries(cells[0] as readonly unknown[], false, {
+    return intakeCells(cells[0] as readonly unknown[], false, {
       ...options,
       describePosition: (i) => `column ${i + 1} of the range`,
     });
   }
-  return readSeries(cells, true, {
+  return intakeCells(cells, true, {
     ...options,
     describePosition: (i) => `row ${i + 1} of the range`,
   });
@@ -91,12 +92,12 @@ export function seriesFromCells(
  * [series.label, series.count, series.gaps, series.values.length]; // → ["resid", 3, 1, 4]
  */
 export function seriesFromValues(list: readonly unknown[], options: IntakeOptions = {}): Series {
-  return readSeries(list, false, options);
+  return intakeCells(list, false, options);
 }
 
 /** A gap-free series from numbers already known to be finite (tests, generators, the bench). */
 export function seriesFromNumbers(numbers: ArrayLike<number>, label = ""): Series {
-  return readSeries(numbers, false, { label, labelFromFirstCell: false });
+  return intakeCells(numbers, false, { label, labelFromFirstCell: false });
 }
 
 /** Cell i of a list, or the first cell of row i of a one-column range. */
@@ -109,7 +110,7 @@ function cellAt(source: ArrayLike<unknown>, fromColumn: boolean, i: number): unk
  * leading and trailing gaps (found first, so the arrays are allocated at their final length),
  * then each cell in order, so the first offending cell is the one named.
  */
-function readSeries(
+function intakeCells(
   source: ArrayLike<unknown>,
   fromColumn: boolean,
   options: IntakeOptions,
@@ -236,7 +237,7 @@ export function blockColumns(rows: readonly (readonly unknown[])[]): BlockColumn
   for (let c = 0; c < width; c++) {
     const cells = rows.map((r) => r[c]);
     const head = cells[0];
-    const fallback = `column ${c + 1}`;
+    const fallback = seriesName("", "cell", { column: c });
     try {
       const series = seriesFromValues(cells, {
         label: fallback,

@@ -5,7 +5,7 @@
  * it go through this one function, so a draw equal to the observed arrangement gives bit for bit
  * the observed statistic and ties are ties (a permutation p-value needs that).
  *
- * Plain sums, not the compensated ones of autocovariance.ts: under a permutation the mean and
+ * Plain sums, not the compensated ones of lagProductSums.ts: under a permutation the mean and
  * c₀ = Σ d_t² are the same for every arrangement, so r_k = s_k / c₀ needs only the lag sums, and
  * their rounding (about n·eps relative) is far below the resolution of any reference drawn here.
  * Cost O(n·K), twice that for the robust kinds (lag sums of the squares too).

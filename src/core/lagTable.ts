@@ -7,7 +7,7 @@
  * decision lives in its own file; this file only assembles. Cost O(n·K) plus O(K²) for the
  * partials. `noiseCheck` gives the same verdict from the same steps without the per-lag table.
  */
-import { autocorrelation, type Autocorrelation } from "./autocovariance";
+import { autocorrelation, type Autocorrelation } from "./autocorrelation";
 import { robustVariances, standardErrors } from "./bands";
 import {
   corridorCrossings,
@@ -57,10 +57,10 @@ export interface LagRow {
   /** That p adjusted by Šidák for all K lags. */
   readonly pSidak: number;
   /** |z_k| beyond the inner corridor (its own band). */
-  readonly beyond: boolean;
+  readonly crossesBand: boolean;
   /** |z_k| beyond the outer corridor (Šidák over K lags). */
   readonly outer: boolean;
-  /** Where z_k lies: `beyond` when `outer`, `between` when only `beyond`, else `inside`; NaN z: `none`. */
+  /** Where z_k lies: `beyond` when `outer`, `between` when only `crossesBand`, else `inside`; NaN z: `none`. */
   readonly zone: CorridorZone;
   /** Joint test over lags 1..k. */
   readonly jointQ: number;
@@ -140,7 +140,7 @@ interface Screen {
   /** Lag k at index k−1: r_k, z_k and the two corridors. */
   readonly lags: readonly VerdictLag[];
   readonly tested: number;
-  readonly beyondLags: readonly number[];
+  readonly crossingLags: readonly number[];
 }
 
 function jointTestInput(
@@ -188,7 +188,7 @@ function screen(
     },
     [testKind, bandKind, String(K), String(alpha), String(season)],
   );
-  const { lags, tested, beyondLags } = corridorCrossings(ac.correlation, se, {
+  const { lags, tested, crossingLags } = corridorCrossings(ac.correlation, se, {
     innerLevel,
     outerLevel: levels.outerLevel,
   });
@@ -204,13 +204,13 @@ function screen(
     levels,
     lags,
     tested,
-    beyondLags,
+    crossingLags,
   };
 }
 
 function conclude(s: Screen): { falseAlarm: FalseAlarmNote; verdict: Verdict } {
   const { maxLag, alpha, season } = s.resolved;
-  const falseAlarm = falseAlarmNote(s.tested, alpha, s.beyondLags);
+  const falseAlarm = falseAlarmNote(s.tested, alpha, s.crossingLags);
   const verdict = judge({
     n: s.ac.n,
     maxLag,
@@ -279,7 +279,7 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
   const partials = partialAutocorrelation(ac.correlation);
   const rows: LagRow[] = [];
   for (let k = 1; k <= K; k++) {
-    const { correlation, z, beyond, outer } = s.lags[k - 1] as VerdictLag;
+    const { correlation, z, crossesBand, outer } = s.lags[k - 1] as VerdictLag;
     const standardError = se[k - 1] as number;
     const pLag = normalTwoSided(z);
     const partial = partials[k - 1] as number;
@@ -296,9 +296,9 @@ export function lagTable(series: Series, options: LagOptions = {}): LagTable {
       z,
       pLag,
       pSidak: sidakAdjust(pLag, K),
-      beyond,
+      crossesBand,
       outer,
-      // Every lag of the table is counted, so the zone's comparisons are `beyond` and `outer`.
+      // Every lag of the table is counted, so the zone's comparisons are `crossesBand` and `outer`.
       zone: corridorZone(z, corridors),
       jointQ: cumulative.q[k - 1] as number,
       jointDf: cumulative.df[k - 1] as number,

@@ -8,8 +8,9 @@
  */
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
-import { invalid, seriesName } from "./errors";
+import { invalid } from "./errors";
 import { requireValues, resolveAlpha } from "./options";
+import { seriesName } from "./seriesName";
 import { CompensatedSum } from "./sums";
 import type { Series } from "./types";
 

@@ -14,14 +14,14 @@
  * recomputed every `window` positions (so rounding never accumulates over more than one window),
  * and also whenever a window's c₀ falls below 1e-4 of its sum of squares about μ₀ (its mean has
  * moved more than 100 standard deviations from μ₀, as after a level shift); a window still that
- * degenerate after re-centring is computed two-pass from scratch (autocovariance.ts), and is NaN if
+ * degenerate after re-centring is computed two-pass from scratch (autocorrelation.ts), and is NaN if
  * constant. Cost O(n·K) (amortised: one recomputation per `window` positions, plus one per such
  * jump), plus one χ² upper tail per window reported.
  *
  * NaN: before the first full window, between steps, and for a window with fewer than max(3, K + 1) values
  * or a constant one.
  */
-import { autocorrelation } from "./autocovariance";
+import { autocorrelation } from "./autocorrelation";
 import { defaultMaxLag } from "./defaultLags";
 import { isEcholotError, requireWholeNumber, tooShort, type ParameterName } from "./errors";
 import { jointTest } from "./portmanteau";
@@ -215,7 +215,7 @@ class WindowSums {
   }
 }
 
-/** r_0..r_K of one window, two-pass from scratch (autocovariance.ts); false when constant. */
+/** r_0..r_K of one window, two-pass from scratch (autocorrelation.ts); false when constant. */
 function exactCorrelations(
   series: Series,
   start: number,

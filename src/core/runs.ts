@@ -11,8 +11,9 @@
  * The check flags at the request's alpha when p < alpha. Cost O(n log n) for the median.
  */
 import { normalTwoSided } from "./distributions";
-import { invalid, seriesName, tooShort } from "./errors";
+import { invalid, tooShort } from "./errors";
 import { requireValues, resolveAlpha } from "./options";
+import { seriesName } from "./seriesName";
 import type { Series } from "./types";
 
 export interface RunsCount {

@@ -3,9 +3,10 @@
  * of the pane's "squared deviations" view (McLeod & Li 1983, J. Time Ser. Anal. 4:269–273). The
  * squares keep the series' gaps. O(n·K).
  */
-import { autocorrelation, type Autocorrelation } from "./autocovariance";
+import { autocorrelation, type Autocorrelation } from "./autocorrelation";
 import { centre } from "./centre";
-import { invalid, isEcholotError, seriesName } from "./errors";
+import { invalid, isEcholotError } from "./errors";
+import { seriesName } from "./seriesName";
 import type { Series } from "./types";
 
 /**

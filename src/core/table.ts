@@ -19,6 +19,7 @@
 import { looksLikeDate, SERIAL_DATE_RANGE, yyyymmddDay } from "./dates";
 import { invalid } from "./errors";
 import { GrowableNumbers } from "./growable";
+import { seriesName } from "./seriesName";
 import {
   cellReader,
   looksNumeric,
@@ -242,7 +243,7 @@ export class TableBuilder {
       const name = this.hasHeader ? cell.trim() : "";
       return new ColumnTally(
         c,
-        name === "" ? `column ${c + 1}` : name,
+        seriesName(name, "cell", { column: c }),
         keep(c, name),
         this.options.expectedRows,
       );

@@ -17,6 +17,7 @@
 import type { FalseAlarmNote } from "./falseAlarms";
 import { normalQuantile, normalTwoSided } from "./distributions";
 import {
+  capitalise,
   formatLagList,
   formatLevel,
   formatNumber,
@@ -35,7 +36,7 @@ export interface VerdictLag {
   readonly correlation: number;
   readonly z: number;
   /** Beyond the inner corridor ±z_{1−α/2} (its own band). */
-  readonly beyond: boolean;
+  readonly crossesBand: boolean;
   /** Beyond the outer corridor (the all-lags corridor at the verdict's common level). */
   readonly outer: boolean;
 }
@@ -91,8 +92,8 @@ export function seasonalLags(season: number | null, maxLag: number): number[] {
 /** "24 lags tested at 5%: about 1.2 would cross … ; 2 did (lags 7, 19); pure noise does that 34% of the time." */
 export function falseAlarmSentence(note: FalseAlarmNote, alpha: number): string {
   const head = `${note.tested} lag${note.tested === 1 ? "" : "s"} tested at ${formatLevel(alpha)}: about ${formatNumber(note.expected, 2)} would cross the band by chance even for pure noise`;
-  if (note.beyond === 0) return `${head}; none did.`;
-  return `${head}; ${note.beyond} did (${formatLagList(note.beyondLags)}); pure noise does that ${formatPercent(note.chance)} of the time.`;
+  if (note.crossings === 0) return `${head}; none did.`;
+  return `${head}; ${note.crossings} did (${formatLagList(note.crossingLags)}); pure noise does that ${formatPercent(note.chance)} of the time.`;
 }
 
 export function judge(input: VerdictInput): Verdict {
@@ -108,7 +109,7 @@ export function judge(input: VerdictInput): Verdict {
     outerLags: lags.filter((l) => l.outer && l.lag >= firstLag).map((l) => l.lag),
     lagOne: pastWatchLine(firstLag),
     seasonalLags: seasonal.filter(pastWatchLine),
-    excessCrossings: falseAlarm.beyond > 0 && falseAlarm.chance < levels.watchLevel,
+    excessCrossings: falseAlarm.crossings > 0 && falseAlarm.chance < levels.watchLevel,
   };
   const note = [untestedNote(input), falseAlarmSentence(falseAlarm, alpha)].join("");
   const testName = input.testName ?? TEST_NAMES[joint.test];
@@ -172,9 +173,9 @@ export function judge(input: VerdictInput): Verdict {
   }
 
   parts.push(`No leftover structure found: ${testName} over ${span} gives ${jointP}.`);
-  if (falseAlarm.beyond === 1) {
+  if (falseAlarm.crossings === 1) {
     parts.push(
-      `${capitalise(describeLag(falseAlarm.beyondLags[0] as number))} crosses its band alone; a lone lag that is neither lag ${firstLag} nor seasonal is weak evidence.`,
+      `${capitalise(describeLag(falseAlarm.crossingLags[0] as number))} crosses its band alone; a lone lag that is neither lag ${firstLag} nor seasonal is weak evidence.`,
     );
   }
   return inParts("clear", parts.join(" "), note, triggers);
@@ -200,8 +201,4 @@ function untestedNote(input: VerdictInput): string {
   if (untested.length === 0) return "";
   const which = untested.length === 1 ? `lag ${untested[0]}` : `lags ${untested.join(" and ")}`;
   return `Seasonal ${which} not tested: ${input.maxLag} lags tested, and ${input.n} values allow at most ${Math.floor(input.n / 4)} for a verdict. `;
-}
-
-function capitalise(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
 }

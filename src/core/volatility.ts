@@ -17,7 +17,8 @@
  */
 import { centre } from "./centre";
 import { chiSquareUpperTail } from "./distributions";
-import { invalid, isEcholotError, seriesName, tooShort } from "./errors";
+import { invalid, isEcholotError, tooShort } from "./errors";
+import { seriesName } from "./seriesName";
 import { leastSquares, type LeastSquaresFit } from "./leastSquares";
 import { resolveAlpha, resolveLagCountOrDefault, requireValues } from "./options";
 import { cumulativeJointTest, jointTestAt } from "./portmanteau";

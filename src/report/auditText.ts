@@ -11,7 +11,7 @@ import { formatNumber, type AuditBatch, type AuditBatchItem, type ForecastAudit 
 import { ALL_RANKED, rankedAuditItems, selectRanked, type RankedSelection } from "./batchOrder";
 import { headlineCell, rankedBodyLines } from "./rankedFooter";
 import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
-import { pCell } from "./tableCells";
+import { paddedP } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
 /** How to show the audit; its horizon, season and alpha are the batch's own (core/auditBatch.ts). */
@@ -36,7 +36,7 @@ function columns(batch: AuditBatch): TextColumn<AuditBatchItem>[] {
   );
   const n = audited((a) => String(a.n));
   const mean = audited((a) => formatNumber(a.bias.mean, 3));
-  const dependenceP = audited((a) => pCell(a.levels.jointP.p, 7));
+  const dependenceP = audited((a) => paddedP(a.levels.jointP.p, 7));
   const width = lastColumnWidth(
     batch.items.map((item) => headlineCell(item.headline)),
     "headline",
@@ -44,9 +44,9 @@ function columns(batch: AuditBatch): TextColumn<AuditBatchItem>[] {
   return [
     { header: "n", width: nWidth, cell: (item) => n(item) ?? "—" },
     { header: "mean", width: 9, cell: (item) => mean(item) ?? "—" },
-    { header: "q-value", width: 7, cell: (item) => pCell(item.biasQValue, 7) },
+    { header: "q-value", width: 7, cell: (item) => paddedP(item.biasQValue, 7) },
     { header: "p", width: 7, cell: (item) => dependenceP(item) ?? "—" },
-    { header: "q-value", width: 7, cell: (item) => pCell(item.dependenceQValue, 7) },
+    { header: "q-value", width: 7, cell: (item) => paddedP(item.dependenceQValue, 7) },
     { header: " headline", width, left: true, cell: (item) => ` ${headlineCell(item.headline)}` },
   ];
 }

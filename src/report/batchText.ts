@@ -11,7 +11,7 @@ import { formatLevel, formatNumber, TEST_NAMES, type BatchCheck, type BatchRow }
 import { ALL_RANKED, rankedBatchRows, selectRanked, type RankedSelection } from "./batchOrder";
 import { headlineCell, rankedBodyLines } from "./rankedFooter";
 import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
-import { pCell } from "./tableCells";
+import { paddedP } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
 /** How to show the batch; the options it was checked with are the batch's own (core/batch.ts). */
@@ -32,9 +32,9 @@ function columns(batch: BatchCheck): TextColumn<BatchRow>[] {
   );
   return [
     { header: "n", width: nWidth, cell: (row) => String(row.n) },
-    { header: "p", width: 8, cell: (row) => pCell(row.p, 8) },
-    { header: "q-value", width: 8, cell: (row) => pCell(row.qValue, 8) },
-    { header: "q-value", width: 8, cell: (row) => pCell(row.biasQValue, 8) },
+    { header: "p", width: 8, cell: (row) => paddedP(row.p, 8) },
+    { header: "q-value", width: 8, cell: (row) => paddedP(row.qValue, 8) },
+    { header: "q-value", width: 8, cell: (row) => paddedP(row.biasQValue, 8) },
     {
       header: " headline",
       width,

@@ -16,7 +16,7 @@
  * and attribute is escaped, so equal input gives byte-equal output.
  */
 import { scaleBand, scaleLinear } from "d3-scale";
-import { referencedPPhrase, seasonalLags, type LagTable } from "../core";
+import { referencedPPhrase, seasonalLags, seriesName, type LagTable } from "../core";
 import {
   jointTestName,
   lagPoints,
@@ -116,7 +116,7 @@ export function chartDescription(table: LagTable, view: ChartView = defaultView(
   const pin = zLimit(table.outerLevel);
   const pinned = points.filter((p) => Math.abs(p.z) > pin).map((p) => p.lag);
   const list = (lags: number[]) => (lags.length === 0 ? "none" : lags.join(", "));
-  const name = table.label === "" ? "the series" : `“${table.label}”`;
+  const name = seriesName(table.label, "prose");
   const parts = [
     `Evidence chart of the ${VIEW_QUANTITIES[view]} of ${name} at lags 1 to ${table.maxLag}, as standardised values z against ${viewBandWords(table, view)}.`,
     `One-lag corridor ±${figure(table.innerLevel, 3)}; all-lags corridor ±${figure(table.outerLevel, 3)} for ${table.maxLag} lags together.`,

@@ -10,6 +10,7 @@ import {
   formatNumber,
   pPhrase,
   seasonalLags,
+  seriesName,
   TEST_NAMES,
   type Headline,
   type LagTable,
@@ -114,8 +115,8 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
     falseAlarm: {
       tested: falseAlarm.tested,
       expected: falseAlarm.expected,
-      seen: falseAlarm.beyond,
-      lags: falseAlarm.beyondLags,
+      seen: falseAlarm.crossings,
+      lags: falseAlarm.crossingLags,
       chance: falseAlarm.chance,
     },
     items,
@@ -126,11 +127,11 @@ export function explainVerdict(table: LagTable, context: ExplainContext = {}): E
 function falseAlarmText(table: LagTable): string {
   const outer = table.rows.filter((r) => r.outer).map((r) => r.lag);
   const corridor = `In the chart the inner corridor (±${formatNumber(table.innerLevel, 3)}) judges one lag on its own; the outer one (±${formatNumber(table.outerLevel, 3)}) holds for all ${table.maxLag} lags together`;
-  const beyond =
+  const outerSentence =
     outer.length === 0
       ? "no lag lies beyond it."
       : `${formatLagList(outer)} ${outer.length === 1 ? "lies" : "lie"} beyond it and ${outer.length === 1 ? "survives" : "survive"} the multiple-lag correction.`;
-  return `${table.verdict.note} ${corridor}: ${beyond}`;
+  return `${table.verdict.note} ${corridor}: ${outerSentence}`;
 }
 
 function seasonText(table: LagTable): string | undefined {
@@ -150,7 +151,7 @@ function seasonText(table: LagTable): string | undefined {
     const row = table.rows[lag - 1];
     if (row === undefined) continue;
     parts.push(
-      `Lag ${lag} (r = ${formatNumber(row.correlation, 3)}, z = ${formatNumber(row.z, 3)}) ${row.outer ? "lies beyond the all-lags corridor" : row.beyond ? "crosses its band" : "stays inside its band"}.`,
+      `Lag ${lag} (r = ${formatNumber(row.correlation, 3)}, z = ${formatNumber(row.z, 3)}) ${row.outer ? "lies beyond the all-lags corridor" : row.crossesBand ? "crosses its band" : "stays inside its band"}.`,
     );
   }
   return parts.join(" ");
@@ -203,7 +204,7 @@ export function explanationText(explanation: Explanation): string {
  */
 export function summaryText(table: LagTable, headline?: Headline): string {
   const badge = BADGES[headline?.word ?? table.verdict.word];
-  const name = table.label === "" ? "Series" : table.label;
+  const name = seriesName(table.label, "heading");
   const options = [
     `${table.maxLag} lags`,
     `alpha ${table.alpha}`,

@@ -16,7 +16,7 @@ import { escapeMarkup } from "./escape";
 import type { Explanation } from "./explain";
 import { jointTestName, lagPoints, VIEW_QUANTITIES, type ChartView } from "./lagViews";
 import { PALETTE, ZONE_COLOURS, ZONE_SHORT, type Zone } from "./palette";
-import { sideFindings, type SideChecks } from "./sideChecksText";
+import { sideFindings, type SideChecks } from "./sideChecks";
 import { element, figure, signed, textElement } from "./svg";
 import { BADGES } from "./verdictBadge";
 
@@ -58,7 +58,7 @@ export function badgeHtml(word: VerdictWord, title: string = word): string {
   );
 }
 
-function pCell(p: number): string {
+function pHtmlCell(p: number): string {
   return textElement("td", {}, Number.isNaN(p) ? "—" : formatP(p));
 }
 
@@ -89,7 +89,7 @@ export function figuresTableHtml(table: LagTable, view: ChartView): string {
         textElement("td", {}, signed(p.value, 4)),
         textElement("td", {}, signed(p.z, 3)),
         textElement("td", { class: `zone-${p.zone}` }, ZONE_SHORT[p.zone]),
-        ...(withTests && row !== undefined ? [pCell(row.pLag), pCell(row.pSidak)] : []),
+        ...(withTests && row !== undefined ? [pHtmlCell(row.pLag), pHtmlCell(row.pSidak)] : []),
       ];
       return element("tr", {}, cells.join(""));
     })
@@ -118,7 +118,7 @@ export function jointSpanTableHtml(table: LagTable): string {
           textElement("th", { scope: "row" }, `1–${row.lag}`),
           textElement("td", {}, Number.isNaN(row.jointP) ? "—" : formatNumber(row.jointQ, 4)),
           textElement("td", {}, Number.isNaN(row.jointP) ? "—" : String(row.jointDf)),
-          pCell(row.jointP),
+          pHtmlCell(row.jointP),
         ].join(""),
       ),
     )
@@ -247,8 +247,8 @@ export function batchTableHtml(batch: BatchCheck): string {
         [
           textElement("th", { scope: "row" }, row.label),
           textElement("td", {}, String(row.n)),
-          pCell(row.p),
-          pCell(row.qValue),
+          pHtmlCell(row.p),
+          pHtmlCell(row.qValue),
           verdict,
         ].join(""),
       );

@@ -10,6 +10,7 @@
 import {
   formatP,
   rankedRows,
+  seriesName,
   type BatchCheck,
   type BatchRow,
   type Headline,
@@ -31,7 +32,7 @@ import { jointRibbonSvg } from "./jointRibbon";
 import { BAND_WORDS, jointTestName, VIEW_NAMES, type ChartView } from "./lagViews";
 import { PALETTE } from "./palette";
 import type { SeriesReport } from "./seriesReport";
-import type { SideChecks } from "./sideChecksText";
+import type { SideChecks } from "./sideChecks";
 import { element, textElement } from "./svg";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 
@@ -169,13 +170,9 @@ function viewSection(table: LagTable, view: ChartView, prefix: string): string {
   );
 }
 
-function seriesName(table: LagTable): string {
-  return table.label === "" ? "the series" : `“${table.label}”`;
-}
-
 /** The question a one-series report answers, in one line. */
 export function reportQuestion(table: LagTable): string {
-  return `Is what is left in ${seriesName(table)} noise, or does it still carry a pattern from one period to the next (lags 1–${table.maxLag})?`;
+  return `Is what is left in ${seriesName(table.label, "prose")} noise, or does it still carry a pattern from one period to the next (lags 1–${table.maxLag})?`;
 }
 
 function gapsWords(gaps: number): string {
@@ -187,7 +184,7 @@ export function reportHtml(input: ReportInput): string {
   const explanation =
     input.explanation ??
     explainVerdict(table, { ...input.context, ...(squares === undefined ? {} : { squares }) });
-  const name = table.label === "" ? "Series" : table.label;
+  const name = seriesName(table.label, "heading");
   const body = [
     element(
       "header",

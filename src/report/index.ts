@@ -10,6 +10,7 @@ export * from "./explain";
 export * from "./htmlParts";
 export * from "./htmlReport";
 export * from "./lagTableHeader";
+export * from "./a1Address";
 export * from "./placedReport";
 export * from "./seriesReport";
 export * from "./portableFormulas";

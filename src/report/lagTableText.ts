@@ -5,17 +5,17 @@
  * `jointSpanText`: one row per span of lags. Figures are rounded for reading only; the JSON output
  * keeps full precision.
  */
-import { formatP, referencedPPhrase, type LagTable } from "../core";
+import { formatP, referencedPPhrase, seriesName, type LagTable } from "../core";
 import { jointTestName, viewBandWords } from "./lagViews";
 import { ZONE_SHORT } from "./palette";
-import { numberCell, pCell } from "./tableCells";
+import { paddedNumber, paddedP } from "./tableCells";
 import { BADGES, SCREENING_CAUTION } from "./verdictBadge";
 
 /** The series' lines, the per-lag rows, the joint test at the chosen K and the verdict. */
 export function lagTableText(table: LagTable): string {
   const badge = BADGES[table.verdict.word];
   const K = table.maxLag;
-  const name = table.label === "" ? "series" : table.label;
+  const name = seriesName(table.label, "cell");
   const lines: string[] = [];
   lines.push(
     `${name}: n = ${table.n}, gaps ${table.gaps}, mean ${table.mean.toPrecision(6)}, variance ${table.variance.toPrecision(6)}`,
@@ -35,12 +35,12 @@ export function lagTableText(table: LagTable): string {
     lines.push(
       [
         String(row.lag).padStart(5),
-        numberCell(row.z, 2, 7),
+        paddedNumber(row.z, 2, 7),
         ` ${ZONE_SHORT[row.zone].padEnd(8)}`,
-        pCell(row.pLag, 11),
-        pCell(row.pSidak, 11),
-        numberCell(row.correlation, 4, 10),
-        numberCell(row.partial, 4, 9),
+        paddedP(row.pLag, 11),
+        paddedP(row.pSidak, 11),
+        paddedNumber(row.correlation, 4, 10),
+        paddedNumber(row.partial, 4, 9),
       ].join(" "),
     );
   }
@@ -69,9 +69,9 @@ export function jointSpanText(table: LagTable): string {
     lines.push(
       [
         `1–${row.lag}`.padStart(6),
-        numberCell(row.jointQ, 2, 10),
+        paddedNumber(row.jointQ, 2, 10),
         (Number.isNaN(row.jointP) ? "—" : String(row.jointDf)).padStart(4),
-        pCell(row.jointP, 10),
+        paddedP(row.jointP, 10),
         row.lag === table.maxLag ? " ← verdict" : "",
       ]
         .join(" ")

@@ -8,7 +8,8 @@
  *
  * Pure: no Office types. Rows and columns are 0-based offsets from A1 of the new sheet.
  */
-import { formatP, TEST_NAMES, type LagTable } from "../core";
+import { formatP, seriesName, TEST_NAMES, type LagTable } from "../core";
+import { cellAddress, columnLetters, rangeAddress } from "./a1Address";
 import { explainVerdict, type Explanation } from "./explain";
 import { LAG_TABLE_Z_COLUMN, lagTableHeader, lagTableValues } from "./lagTableHeader";
 import { PALETTE } from "./palette";
@@ -81,27 +82,6 @@ const HELPER_SERIES: readonly Omit<PlanChartSeries, "values">[] = [
 const TABLE_ROW = 8; // row 9: the spilled lag table's header
 const HELPER_COLUMN = 8; // column I
 const LEVEL_COLUMN = 16; // column Q (labels) and R (values)
-
-/** Column letters of a 0-based column index: 0 → A, 25 → Z, 26 → AA. */
-export function columnLetters(column: number): string {
-  let n = column + 1;
-  let letters = "";
-  while (n > 0) {
-    const rest = (n - 1) % 26;
-    letters = String.fromCharCode(65 + rest) + letters;
-    n = Math.floor((n - 1) / 26);
-  }
-  return letters;
-}
-
-export function cellAddress(row: number, column: number, absolute = false): string {
-  const d = absolute ? "$" : "";
-  return `${d}${columnLetters(column)}${d}${row + 1}`;
-}
-
-function rangeAddress(row: number, column: number, rows: number, columns: number): string {
-  return `${cellAddress(row, column)}:${cellAddress(row + rows - 1, column + columns - 1)}`;
-}
 
 /** Characters a sheet name may not hold, and its length limit (31). */
 const SHEET_NAME_FORBIDDEN = /[:\\/?*[\]]/g;
@@ -192,7 +172,7 @@ function buildPlan(
   const put = (row: number, column: number, content: PlanCellContent) =>
     cells.push({ row, column, content });
   const text = (row: number, column: number, value: string | number) => put(row, column, { value });
-  const name = table.label === "" ? "series" : table.label;
+  const name = seriesName(table.label, "cell");
 
   text(0, 0, kind === "live" ? `Echolot live report: ${name}` : `Echolot snapshot: ${name}`);
   text(1, 0, "Source");

@@ -4,7 +4,14 @@
  * columns and one row of helper formulas per data cell. Echolot's own figures are recorded
  * under the keys the cells carry, so a test can compare what a spreadsheet computes.
  */
-import { pairCounts, TEST_NAMES, type LagRow, type LagTable, type Series } from "../core";
+import {
+  pairCounts,
+  seriesName,
+  TEST_NAMES,
+  type LagRow,
+  type LagTable,
+  type Series,
+} from "../core";
 import { absoluteCell, absoluteColumn, textLiteral } from "./portableFormulas";
 import { reasonFormula, standardErrorFormula, termFormula } from "./portableLagFormulas";
 import {
@@ -48,7 +55,7 @@ function sheetVerdict(f: (name: FigureRow) => Figure | undefined): string {
   if ((typeof p === "number" && p < num("jointLevel")) || num("outerCount") > 0) {
     return "structure";
   }
-  const excess = num("beyond") > 0 && num("chance") < num("alpha");
+  const excess = num("crossings") > 0 && num("chance") < num("alpha");
   return f("lagOne") === "yes" || f("seasonal") === "yes" || excess ? "watch" : "clear";
 }
 
@@ -95,7 +102,7 @@ export function portableBlock(
   const helpColumn = (c: number) => absoluteColumn(origin.row + firstLagRow, origin.column + c, L);
   const src = absoluteColumn(source.firstRow, source.column, L, source.sheet);
   const srcCell = (i: number) => absoluteCell(source.firstRow + i, source.column, source.sheet);
-  const name = table.label === "" ? "series" : table.label;
+  const name = seriesName(table.label, "cell");
 
   // The header: what it is.
   text(ROW.title, 0, `Echolot portable report: ${name}`, "title");
@@ -135,7 +142,7 @@ export function portableBlock(
   const outer = fig("outerLevel");
   const alpha = fig("alpha");
   const tested = fig("tested");
-  const beyond = fig("beyond");
+  const crossings = fig("crossings");
   figure("source", { value: src }, undefined);
   figure("n", { formula: `=COUNT(${src})` }, table.n, PORTABLE_FORMATS.count);
   const where = helpColumn(HELP.where);
@@ -180,9 +187,9 @@ export function portableBlock(
   figure("expected", { formula: `=${tested}*${alpha}` }, note.expected, PORTABLE_FORMATS.fixed);
   const zones = lagColumn(COL.zone);
   figure(
-    "beyond",
+    "crossings",
     { formula: `=COUNTIF(${zones},"between")+COUNTIF(${zones},"beyond")` },
-    note.beyond,
+    note.crossings,
     PORTABLE_FORMATS.count,
   );
   figure(
@@ -194,7 +201,7 @@ export function portableBlock(
   figure(
     "chance",
     {
-      formula: `=IF(${beyond}=0,1,SUMIF(${lagColumn(COL.lag)},">="&${beyond},${lagColumn(COL.pmf)}))`,
+      formula: `=IF(${crossings}=0,1,SUMIF(${lagColumn(COL.lag)},">="&${crossings},${lagColumn(COL.pmf)}))`,
     },
     note.chance,
     PORTABLE_FORMATS.p,
@@ -202,7 +209,7 @@ export function portableBlock(
   const crosses = (k: number) =>
     `OR(${lagCell(k, COL.zone)}="between",${lagCell(k, COL.zone)}="beyond")`;
   // Lag 1 and the seasonal lags as the sheet judges them: beyond the one-lag corridor.
-  const crossesInner = (k: number) => table.rows[k - 1]?.beyond === true;
+  const crossesInner = (k: number) => table.rows[k - 1]?.crossesBand === true;
   figure("lagOne", { formula: `=IF(${crosses(1)},"yes","no")` }, crossesInner(1) ? "yes" : "no");
   const seasonal =
     table.season === null ? [] : [table.season, 2 * table.season].filter((m) => m <= K);
@@ -222,7 +229,7 @@ export function portableBlock(
     ROW.verdict,
     1,
     {
-      formula: `=IF(OR(${n}<20,${K}>${n}/4),"short",IF(OR(${p}<${fig("jointLevel")},${fig("outerCount")}>0),"structure",IF(OR(${fig("lagOne")}="yes",${fig("seasonal")}="yes",AND(${beyond}>0,${fig("chance")}<${alpha})),"watch","clear")))`,
+      formula: `=IF(OR(${n}<20,${K}>${n}/4),"short",IF(OR(${p}<${fig("jointLevel")},${fig("outerCount")}>0),"structure",IF(OR(${fig("lagOne")}="yes",${fig("seasonal")}="yes",AND(${crossings}>0,${fig("chance")}<${alpha})),"watch","clear")))`,
     },
     { style: "verdict", figure: key("verdict") },
   );

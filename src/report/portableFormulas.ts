@@ -9,7 +9,7 @@
  * #NAME?. Through office.js `range.formulas` takes the plain names, so the plan keeps plain names
  * and the file writer adds the prefix with `fileFormula`.
  */
-import { columnLetters } from "./placedReport";
+import { cellAddress } from "./a1Address";
 import type { PortableColumn } from "./portableTypes";
 
 /** Functions the portable report may use; those marked `future` need `_xlfn.` in a file. */
@@ -77,7 +77,7 @@ export function quotedSheet(sheet: string): string {
 
 /** `$C$7`, or `'Sheet'!$C$7` with a sheet; rows and columns 0-based. */
 export function absoluteCell(row: number, column: number, sheet?: string): string {
-  const cell = `$${columnLetters(column)}$${row + 1}`;
+  const cell = cellAddress(row, column, true);
   return sheet === undefined ? cell : `${quotedSheet(sheet)}!${cell}`;
 }
 

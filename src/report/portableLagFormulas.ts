@@ -50,7 +50,7 @@ export function reasonFormula(
 ): string {
   const p = fig("p");
   const joint = `${textLiteral(`${TEST_NAMES[table.testKind]} over ${table.maxLag} lags: Q = `)}&TEXT(${fig("Q")},"0.00")&", df "&${fig("df")}&IF(${p}<0.0001,", p < 0.0001",", p = "&TEXT(${p},"0.0000"))`;
-  const note = `${fig("tested")}&" lags tested at "&TEXT(${fig("alpha")},"0.0%")&": about "&TEXT(${fig("expected")},"0.0")&" would cross the one-lag band by chance even for pure noise; "&${fig("beyond")}&" did, "&${fig("outerCount")}&" of them beyond the all-lags corridor."`;
+  const note = `${fig("tested")}&" lags tested at "&TEXT(${fig("alpha")},"0.0%")&": about "&TEXT(${fig("expected")},"0.0")&" would cross the one-lag band by chance even for pure noise; "&${fig("crossings")}&" did, "&${fig("outerCount")}&" of them beyond the all-lags corridor."`;
   const short = textLiteral(
     "Not judged: a verdict needs at least 20 values and at most n/4 lags; the figures are shown for reference. ",
   );

@@ -4,7 +4,7 @@
  * without the add-in, in Excel, LibreOffice Calc or Google Sheets. One plan, two writers: the
  * pane (office.js) and `echolot workbook` (an xlsx file).
  *
- * What the cells compute, as the core does (autocovariance.ts, bands.ts, portmanteau.ts,
+ * What the cells compute, as the core does (autocorrelation.ts, bands.ts, portmanteau.ts,
  * corridors.ts, falseAlarms.ts, verdict.ts):
  * - per data cell, helper columns: present (1/0), the value or 0, the deviation from the mean of
  *   the values present or 0 at a gap, and its square. A gap (blank, #N/A, any non-number) adds
@@ -20,7 +20,7 @@
  * The plan carries the figures Echolot computed (`figures`, keyed as the cells' `figure`), so a
  * test can read the cells back from a spreadsheet engine and compare. Pure: no Office, no files.
  */
-import type { LagTable, Series } from "../core";
+import { seriesName, type LagTable, type Series } from "../core";
 import { PALETTE } from "./palette";
 import { portableBlock } from "./portableBlock";
 import { blockWidths, COL, FIGURE_ROWS, PIN, PORTABLE_BLOCK_WIDTH, ROW } from "./portableLayout";
@@ -80,7 +80,7 @@ export function portablePlan(
   const chartTop = origin.row + ROW.figures;
   const tableEnd = first + K;
   const chart: PortableChart = {
-    title: `z by lag: ${table.label === "" ? "series" : table.label}`,
+    title: `z by lag: ${seriesName(table.label, "cell")}`,
     categories: column(COL.lag),
     series: series_,
     xTitle: "lag",

@@ -18,9 +18,9 @@ import {
   type Series,
   type VolatilityCheck,
 } from "../core";
-import { biasFinding, volatilityFinding } from "./checkLines";
+import { biasFinding, volatilityFinding } from "./checkFindings";
 import { explainVerdict, type Explanation } from "./explain";
-import { sideChecks, type SideChecks } from "./sideChecksText";
+import { sideChecks, type SideChecks } from "./sideChecks";
 
 export interface SeriesReport {
   readonly series: Series;

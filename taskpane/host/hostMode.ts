@@ -3,7 +3,7 @@
  * each reading to the pane; the actions place reports on a new sheet. The readings become series
  * through the core's intake: one column or row is one series, a block is one series per column.
  */
-import { isEcholotError, seriesFromValues, type Series } from "../../src/core";
+import { capitalise, isEcholotError, seriesFromValues, type Series } from "../../src/core";
 import { cellAddress, liveReportPlan, rankedListGrid, snapshotReportPlan } from "../../src/report";
 import type { PaneController } from "../pane/controller";
 import { showMessage, type PaneElements } from "../pane/view";
@@ -85,7 +85,7 @@ const REQUEST_ADVICE: Readonly<Record<string, string>> = {
 
 export function messageOf(error: unknown): string {
   if (error instanceof HostError || isEcholotError(error)) {
-    return error.message.charAt(0).toUpperCase() + error.message.slice(1);
+    return capitalise(error.message);
   }
   const code = requestErrorCode(error);
   const said = (error instanceof Error ? error.message : String(error)).replace(/\.$/, "");

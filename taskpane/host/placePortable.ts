@@ -6,7 +6,7 @@
  * without the add-in. Nothing is written over a non-empty cell. The button is added beside
  * "Place snapshot" by `installPortableAction`, the one call the pane's host glue makes.
  */
-import { isEcholotError } from "../../src/core";
+import { capitalise, isEcholotError } from "../../src/core";
 import {
   absoluteColumn,
   portablePlan,
@@ -182,7 +182,7 @@ function addPortableChart(sheet: Excel.Worksheet, plan: PortableChart): void {
 
 function messageOf(error: unknown): string {
   if (error instanceof HostError || isEcholotError(error)) {
-    return error.message.charAt(0).toUpperCase() + error.message.slice(1);
+    return capitalise(error.message);
   }
   return `The workbook refused the request: ${error instanceof Error ? error.message : String(error)}`;
 }

@@ -7,6 +7,7 @@ import {
   auditBatch,
   batchCheck,
   isEcholotError,
+  seriesName,
   type AuditBatch,
   type EcholotError,
   type LagOptions,
@@ -33,7 +34,7 @@ import { downloadText, fileNamePart } from "./download";
 import { RankedTable } from "./rankedTable";
 import {
   auditHorizonFrom,
-  lagOptionsFrom,
+  lagOptionsFromSettings,
   readSettingsForm,
   writeSettingsForm,
   type SettingsText,
@@ -161,7 +162,7 @@ export class PaneController {
     let index = this.index;
     let analysis: SeriesReport;
     try {
-      const options = lagOptionsFrom(text);
+      const options = lagOptionsFromSettings(text);
       ranking = this.rankingFor(input, text, options);
       const top = ranking?.list.items[0];
       if (this.pickTop && top !== undefined) index = top.index;
@@ -271,7 +272,7 @@ export class PaneController {
     const analysis = this.analysis;
     const headline = this.headlineShown();
     if (analysis === null || headline === null) return "";
-    const label = analysis.table.label === "" ? "Series" : analysis.table.label;
+    const label = seriesName(analysis.table.label, "heading");
     const item = this.rankedItem();
     const check = (this.ranking?.audit ?? null) === null ? "" : "forecast audit: ";
     const count = this.ranking?.list.items.length ?? 1;

@@ -46,7 +46,8 @@ function numberSetting(name: SettingName, text: string): number | null {
   return value;
 }
 
-export function lagOptionsFrom(text: SettingsText): LagOptions {
+/** The lag table and verdict options from the settings form's text. */
+export function lagOptionsFromSettings(text: SettingsText): LagOptions {
   return {
     maxLag: numberSetting("maxLag", text.maxLag),
     season: numberSetting("season", text.season),

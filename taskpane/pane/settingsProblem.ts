@@ -3,7 +3,7 @@
  * the message), and the core's message speaks the label's own words ("Max lag must be…", never
  * "maxLag must be…"), read from the form's labels so the two can never drift apart.
  */
-import type { EcholotError } from "../../src/core";
+import { capitalise, type EcholotError } from "../../src/core";
 import { SETTING_NAMES, type SettingName } from "./settings";
 
 /** The setting a refusal is about: the parameter it refuses, when the form has a field for it. */
@@ -35,7 +35,7 @@ export function inLabelWords(
 ): string {
   const text =
     setting === undefined ? error.message : error.messageNaming(labelText(form, setting));
-  return text.charAt(0).toUpperCase() + text.slice(1);
+  return capitalise(text);
 }
 
 /** Marks the refused field (or none) invalid, described by the problem's message. */

@@ -2,6 +2,7 @@
  * Puts an analysis on the page. Every piece of markup comes from src/report (escaped there);
  * this file only finds the page's elements and swaps their contents.
  */
+import { seriesName } from "../../src/core";
 import {
   chartDescription,
   evidenceChartSvg,
@@ -124,7 +125,7 @@ export function renderAnalysis(
 ): void {
   const { table } = analysis;
   el.result.hidden = false;
-  el.label.textContent = table.label === "" ? "Series" : table.label;
+  el.label.textContent = seriesName(table.label, "heading");
   el.meta.textContent = `${gapsText(analysis)} · ${source}`;
   el.badge.innerHTML = badgeHtml(analysis.headline.word, analysis.headline.title);
   el.explanation.innerHTML = explanationHtml(analysis.explanation);

@@ -2,7 +2,7 @@
  * Standalone mode: the same pane outside a workbook. Data come from pasted text, a CSV file
  * (opened or dropped) or a bundled demo scenario; nothing is sent anywhere.
  */
-import { isEcholotError, type LagOptions } from "../../src/core";
+import { capitalise, isEcholotError, type LagOptions } from "../../src/core";
 import type { PaneController } from "../pane/controller";
 import { showMessage, type PaneElements } from "../pane/view";
 import { seriesFromText } from "./delimited";
@@ -39,7 +39,7 @@ export function startStandalone(el: PaneElements, pane: PaneController): void {
       panel.open = false;
     } catch (error) {
       if (!isEcholotError(error)) throw error;
-      pane.showDataProblem(error.message.charAt(0).toUpperCase() + error.message.slice(1));
+      pane.showDataProblem(capitalise(error.message));
     }
   };
 

@@ -9,7 +9,7 @@
  */
 import { afterEach, describe, expect, it } from "vitest";
 import { lagTable, seriesFromValues, type Series } from "../../src/core";
-import { sideChecks } from "../../src/report/sideChecksText";
+import { sideChecks } from "../../src/report/sideChecks";
 import { whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
 

@@ -25,7 +25,7 @@ import {
   type Series,
 } from "../../src/core";
 import { corridorLevels, corridorZone } from "../../src/core/corridors";
-import { sideChecks } from "../../src/report/sideChecksText";
+import { sideChecks } from "../../src/report/sideChecks";
 import { ar1, whiteNoise } from "../../src/sim/processes";
 import { seededRandom } from "../../src/sim/random";
 import { expectClose } from "../helpers/expectClose";
@@ -76,7 +76,7 @@ describe("lagTable(series) rows: zones, partial z and the joint test at alpha", 
   it("gives each row the zone its z and the table's corridors define, agreeing with beyond and outer", () => {
     for (const row of table.rows) {
       expect(row.zone, `lag ${row.lag}`).toBe(corridorZone(row.z, levels));
-      const fromFlags = row.outer ? "beyond" : row.beyond ? "between" : "inside";
+      const fromFlags = row.outer ? "beyond" : row.crossesBand ? "between" : "inside";
       expect(row.zone, `lag ${row.lag} flags`).toBe(fromFlags);
     }
     // Series F's lag 1 (r = −0.39, n = 70: z ≈ −3.26) lies past both corridors; a later lag does not.

@@ -228,7 +228,7 @@ describe("the automatic path: direct below the crossover, transform above", () =
   });
 
   it("short series and few lags stay on the direct path; long lag lists on long series go to the transform", () => {
-    // The cost model of autocovariance.ts, whose step cost the bench measured (README, Speed:
+    // The cost model of lagProductSums.ts, whose step cost the bench measured (README, Speed:
     // the crossover line); 260 values is the block check's typical column.
     expect(fftCrossover(260)).toBe(260); // the transform never pays at 260 values
     expect(prefersFft(1_048_576, 40)).toBe(false);

@@ -41,7 +41,7 @@ describe("lagTable(series) with gaps", () => {
     expect(Number.isFinite(lag3?.correlation)).toBe(true);
     expect(lag3?.jointDf).toBe(2);
     expect(table.falseAlarm.tested).toBe(2);
-    expect(lag2?.beyond).toBe(false);
+    expect(lag2?.crossesBand).toBe(false);
   });
 
   it("seriesFromCells(column with leading and trailing blanks) gives the same lagTable as the bare values", () => {

@@ -223,7 +223,7 @@ describe("forecastAudit and its joint test of later lags", () => {
     expect(audit.rows.filter((r) => !r.counted).map((r) => r.lag)).toEqual([1, 2]);
     expect(audit.falseAlarm.tested).toBe(10);
     // Series F's r₁ = −0.39 is far outside its band but lies below the horizon: not counted.
-    expect(audit.rows[0]?.beyond).toBe(false);
+    expect(audit.rows[0]?.crossesBand).toBe(false);
     expect(audit.dependence.word).toBe("clear");
     expect(audit.dependence.reason).toMatch(/over lags 3–12/);
   });

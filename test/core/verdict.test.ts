@@ -25,7 +25,7 @@ interface Scenario {
   readonly alpha?: number;
   readonly season?: number | null;
   /** Lags beyond their own band. */
-  readonly beyond?: readonly number[];
+  readonly crossing?: readonly number[];
   /** Lags beyond the outer (Šidák) corridor as well. */
   readonly outer?: readonly number[];
   readonly jointP?: number;
@@ -40,15 +40,15 @@ function scenario(s: Scenario): VerdictInput {
   const maxLag = s.maxLag ?? 10;
   const alpha = s.alpha ?? 0.05;
   const outer = s.outer ?? [];
-  const beyond = [...new Set([...(s.beyond ?? []), ...outer])].sort((a, b) => a - b);
+  const crossing = [...new Set([...(s.crossing ?? []), ...outer])].sort((a, b) => a - b);
   const lags: VerdictLag[] = Array.from({ length: maxLag }, (_, i) => {
     const lag = i + 1;
-    const z = outer.includes(lag) ? 4 : beyond.includes(lag) ? 2.5 : 0.3;
+    const z = outer.includes(lag) ? 4 : crossing.includes(lag) ? 2.5 : 0.3;
     return {
       lag,
       correlation: z / Math.sqrt(n),
       z,
-      beyond: beyond.includes(lag),
+      crossesBand: crossing.includes(lag),
       outer: outer.includes(lag),
     };
   });
@@ -70,7 +70,7 @@ function scenario(s: Scenario): VerdictInput {
       jointP: { p: s.jointP ?? 0.5, reference: "permutation", draws: 499, bound: false },
       jointRejects: (s.jointP ?? 0.5) < alpha,
     },
-    falseAlarm: falseAlarmNote(maxLag, alpha, beyond),
+    falseAlarm: falseAlarmNote(maxLag, alpha, crossing),
     ...(s.subject === undefined ? {} : { subject: s.subject }),
   };
 }
@@ -142,7 +142,7 @@ describe("judge(input): structure", () => {
 
 describe("judge(input): watch", () => {
   it("judge(lag 1 beyond its band) is watch when the joint test does not reject", () => {
-    const verdict = judged({ beyond: [1], jointP: 0.2 });
+    const verdict = judged({ crossing: [1], jointP: 0.2 });
     expect(verdict.word).toBe("watch");
     expect(verdict.triggers.lagOne).toBe(true);
     expect(verdict.reason).toMatch(
@@ -151,21 +151,21 @@ describe("judge(input): watch", () => {
   });
 
   it("judge(seasonal lag 2m beyond its band) is watch and names the seasonal lag", () => {
-    const verdict = judged({ season: 4, beyond: [8] });
+    const verdict = judged({ season: 4, crossing: [8] });
     expect(verdict.word).toBe("watch");
     expect(verdict.triggers.seasonalLags).toEqual([8]);
     expect(verdict.reason).toMatch(/^Seasonal lag 8 \(r = 0\.25\) lies beyond the watch line/);
   });
 
   it("judge(seasonal lag m beyond its band) is watch", () => {
-    expect(judged({ season: 4, beyond: [4] }).word).toBe("watch");
+    expect(judged({ season: 4, crossing: [4] }).word).toBe("watch");
     // Without the season, the same lag alone is a lone far lag: clear.
-    expect(judged({ beyond: [4] }).word).toBe("clear");
+    expect(judged({ crossing: [4] }).word).toBe("clear");
   });
 
   it("judge(4 of 20 lags beyond) is watch: more crossings than chance explains", () => {
     // Binomial upper tail P(X ≥ 4), X ~ Bin(20, 0.05) ≈ 0.016 < α (derived, binomialUpperTail).
-    const input = scenario({ n: 200, maxLag: 20, beyond: [3, 7, 11, 15] });
+    const input = scenario({ n: 200, maxLag: 20, crossing: [3, 7, 11, 15] });
     expectClose(
       input.falseAlarm.chance,
       binomialUpperTail(4, 20, 0.05),
@@ -181,7 +181,7 @@ describe("judge(input): watch", () => {
   });
 
   it("judge(2 of 10 lags beyond) is not excess: chance 8.6% ≥ α", () => {
-    const verdict = judged({ beyond: [3, 7] });
+    const verdict = judged({ crossing: [3, 7] });
     expect(verdict.triggers.excessCrossings).toBe(false);
     expect(verdict.word).toBe("clear");
   });
@@ -197,7 +197,7 @@ describe("judge(input): clear", () => {
   });
 
   it("judge(a lone far lag) is clear and names that lag as weak evidence", () => {
-    const verdict = judged({ beyond: [7] });
+    const verdict = judged({ crossing: [7] });
     expect(verdict.word).toBe("clear");
     expect(verdict.reason).toContain(
       "Lag 7 (r = 0.25) crosses its band alone; a lone lag that is neither lag 1 nor seasonal is weak evidence.",

@@ -65,7 +65,7 @@ function numberAt(result: CellResult, r: number, c: number): number {
 
 /** The cells SERIESLAGTABLE should spill for one row of the core's lag table. */
 function lagTableCells(row: LagRow): (number | string)[] {
-  const zone = row.outer ? "beyond" : row.beyond ? "between" : "inside";
+  const zone = row.outer ? "beyond" : row.crossesBand ? "between" : "inside";
   return [row.lag, row.correlation, row.partial, row.z, zone, row.pLag, row.pSidak];
 }
 

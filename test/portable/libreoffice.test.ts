@@ -110,7 +110,7 @@ function ruleVerdict(plan: PortablePlan, key: string): string {
   const num = (name: string) => f(name) as number;
   if (num("n") < 20 || num("maxLag") > num("n") / 4) return "short";
   if (num("p") < num("jointLevel") || num("outerCount") > 0) return "structure";
-  const excess = num("beyond") > 0 && num("chance") < num("alpha");
+  const excess = num("crossings") > 0 && num("chance") < num("alpha");
   if (f("lagOne") === "yes" || f("seasonal") === "yes" || excess) return "watch";
   return "clear";
 }

@@ -96,6 +96,30 @@ describe("echolot report FILE.csv --out report.html", () => {
     expect(page).not.toContain('<details class="item"');
   });
 
+  it("names an unlabelled column by its place in the file, in the report and the line it prints", () => {
+    // No header: column 1 counts the periods (left out as an id or time column), column 2 holds
+    // the values; the series has no label, so both the report's source line and the printed
+    // verdict name it "column 2", as the workbook command does. Semicolons, so "1,47" is not
+    // read as a decimal comma.
+    const values = readFileSync("test/fixtures/series-f.csv", "utf8")
+      .trim()
+      .split(/\r?\n/)
+      .slice(1);
+    const file = csvFile(
+      "unlabelled.csv",
+      `${values.map((value, i) => `${i + 1};${value}`).join("\n")}\n`,
+    );
+    for (const choice of [[], ["--column", "2"]]) {
+      const target = join(out, `unlabelled${choice.length}.html`);
+      const result = runCli(["report", file, "--no-header", ...choice, "--out", target]);
+      expect(result.status, result.stderr).toBe(0);
+      expect(result.stdout.trim().split("\n").at(-1)).toMatch(
+        new RegExp(`^wrote ${target.replace(/[.\\/]/g, "\\$&")}: column 2, `),
+      );
+      expect(readFileSync(target, "utf8")).toContain("from unlabelled.csv, column “column 2”.");
+    }
+  });
+
   it("refuses without --out, or with --json, saying what to do", () => {
     const missing = runCli(["report", "test/fixtures/series-f.csv"]);
     expect(missing.status).toBe(2);

@@ -1,6 +1,7 @@
 /**
- * The side checks of one series as text lines for the terminal (`echolot check`): volatility,
- * bias, runs and normality, one finding each, or the reason a check could not be made.
+ * The side-check section of one series: volatility, bias, runs and normality, run at the lag
+ * table's alpha, each with its finding (checkFindings.ts) or the reason it could not be made, in
+ * reading order; and that section as text lines for the terminal (`echolot check`).
  */
 import {
   biasCheck,
@@ -15,7 +16,13 @@ import {
   type Series,
   type VolatilityCheck,
 } from "../core";
-import { biasFinding, normalityFinding, runsFinding, volatilityFinding } from "./checkLines";
+import {
+  biasFinding,
+  normalityFinding,
+  runsFinding,
+  volatilityFinding,
+  type CheckFinding,
+} from "./checkFindings";
 
 /** Each check's result, or the message saying why the data cannot support it. */
 export interface SideChecks {
@@ -51,8 +58,8 @@ export function sideChecks(
 /** Each side check's name and its finding (or why it was not computed), in reading order. */
 export function sideFindings(
   checks: SideChecks,
-): { name: string; finding: { flagged: boolean; text: string } | string }[] {
-  const found = <T>(value: T | string, word: (v: T) => { flagged: boolean; text: string }) =>
+): { name: string; finding: CheckFinding | string }[] {
+  const found = <T>(value: T | string, word: (v: T) => CheckFinding) =>
     typeof value === "string" ? value : word(value);
   return [
     { name: "volatility", finding: found(checks.volatility, volatilityFinding) },
@@ -62,7 +69,7 @@ export function sideFindings(
   ];
 }
 
-function line(name: string, finding: { flagged: boolean; text: string } | string): string {
+function line(name: string, finding: CheckFinding | string): string {
   if (typeof finding === "string") return `  ${name.padEnd(11)} not computed: ${finding}`;
   return `  ${name.padEnd(11)} ${finding.flagged ? "flag" : "ok  "}  ${finding.text}`;
 }
