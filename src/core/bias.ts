@@ -12,7 +12,7 @@
  *   cv(b) = 1.9600 + 2.9694·b + 0.4160·b² − 0.5324·b³   (the polynomial fit, from memory),
  * and Echolot scales t by z_{0.975}/cv(b) before the normal tail, which is exact at 5% and close
  * elsewhere (measured on white noise, 20,000 runs: 4.7–5.0% at 5% for n 20–1000; 1.0–1.5% at 1%;
- * 9.0–10.1% at 10% — test/calibration/biasSize.test.ts asserts the 5% rate).
+ * 9.0–10.1% at 10% — test/calibration/headlineSize.test.ts asserts the 5% rate).
  * Default L = ⌊4(n/100)^{2/9}⌋ (from memory: the preliminary lag of Newey & West 1994, Rev. Econ.
  * Stud. 61:631–653); `hacLags` overrides it, and L = 0 gives the plain iid standard error
  * √(γ̂_0/n). With gaps each γ̂_j sums over the pairs present; a lag with no pair adds nothing.
