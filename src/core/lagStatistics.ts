@@ -48,25 +48,88 @@ export function lagStatisticsWork(length: number, maxLag: number): LagStatistics
 
 /**
  * s_k = Σ_t a_t a_{t−k}, k = 1..K, each with four interleaved partial sums: one running sum is
- * bound by the latency of floating-point addition, four keep the multiplier busy.
+ * bound by the latency of floating-point addition, four keep the multiplier busy. Lag k's sum
+ * s0 takes t = k, k+4, …, s1 t = k+1, k+5, … over its whole groups of four (t ≤ k + 4G − 1,
+ * G = ⌊(length − k)/4⌋), then s0 the rest in order; s_k = s0 + s1 + (s2 + s3).
+ *
+ * Lags go in pairs (k, k+1) through one loop, which loads each a_t once for both: the pair's
+ * loop runs over lag k+1's whole groups, and lag k's additions there fall into its own partial
+ * sums in the same order (its classes shifted by one), so each s_k is bit for bit the sum above.
  */
-function plainLagSums(a: Float64Array, maxLag: number, into: Float64Array): void {
+export function plainLagSums(a: Float64Array, maxLag: number, into: Float64Array): void {
+  let k = 1;
+  for (; k + 1 <= maxLag; k += 2) pairOfLagSums(a, k, into);
+  if (k <= maxLag) into[k] = oneLagSum(a, k);
+}
+
+/** s_k alone, as the file's comment orders its additions. */
+function oneLagSum(a: Float64Array, k: number): number {
   const length = a.length;
-  for (let k = 1; k <= maxLag; k++) {
-    let s0 = 0;
-    let s1 = 0;
-    let s2 = 0;
-    let s3 = 0;
-    let t = k;
-    for (; t + 3 < length; t += 4) {
-      s0 += (a[t] as number) * (a[t - k] as number);
-      s1 += (a[t + 1] as number) * (a[t + 1 - k] as number);
-      s2 += (a[t + 2] as number) * (a[t + 2 - k] as number);
-      s3 += (a[t + 3] as number) * (a[t + 3 - k] as number);
-    }
-    for (; t < length; t++) s0 += (a[t] as number) * (a[t - k] as number);
-    into[k] = s0 + s1 + (s2 + s3);
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
+  let t = k;
+  for (; t + 3 < length; t += 4) {
+    s0 += (a[t] as number) * (a[t - k] as number);
+    s1 += (a[t + 1] as number) * (a[t + 1 - k] as number);
+    s2 += (a[t + 2] as number) * (a[t + 2 - k] as number);
+    s3 += (a[t + 3] as number) * (a[t + 3 - k] as number);
   }
+  for (; t < length; t++) s0 += (a[t] as number) * (a[t - k] as number);
+  return s0 + s1 + (s2 + s3);
+}
+
+/** s_k and s_{k+1} in one pass (see `plainLagSums`). */
+function pairOfLagSums(a: Float64Array, k: number, into: Float64Array): void {
+  const length = a.length;
+  const j = k + 1;
+  // Lag k: its first addition (t = k, class 0) comes before the shared loop.
+  let p0 = k < length ? (a[k] as number) * (a[0] as number) : 0;
+  let p1 = 0;
+  let p2 = 0;
+  let p3 = 0;
+  let q0 = 0;
+  let q1 = 0;
+  let q2 = 0;
+  let q3 = 0;
+  let t = j;
+  for (; t + 3 < length; t += 4) {
+    const x0 = a[t] as number;
+    const x1 = a[t + 1] as number;
+    const x2 = a[t + 2] as number;
+    const x3 = a[t + 3] as number;
+    const y0 = a[t - k] as number;
+    const y1 = a[t + 1 - k] as number;
+    const y2 = a[t + 2 - k] as number;
+    const y3 = a[t + 3 - k] as number;
+    // t − k ≡ 1, 2, 3, 0 (mod 4) for lag k; 0, 1, 2, 3 for lag k + 1.
+    p1 += x0 * y0;
+    p2 += x1 * y1;
+    p3 += x2 * y2;
+    p0 += x3 * y3;
+    q0 += x0 * (a[t - j] as number);
+    q1 += x1 * y0;
+    q2 += x2 * y1;
+    q3 += x3 * y2;
+  }
+  // Lag k + 1's whole groups are done: the rest is its tail, into q0 in order.
+  for (let u = t; u < length; u++) q0 += (a[u] as number) * (a[u - j] as number);
+  // Lag k may have one whole group more (into its own classes), then its tail into p0.
+  const groupsEnd = k + 4 * Math.floor((length - k) / 4);
+  for (let u = t; u < length; u++) {
+    const product = (a[u] as number) * (a[u - k] as number);
+    if (u >= groupsEnd) p0 += product;
+    else {
+      const c = (u - k) & 3;
+      if (c === 0) p0 += product;
+      else if (c === 1) p1 += product;
+      else if (c === 2) p2 += product;
+      else p3 += product;
+    }
+  }
+  into[k] = p0 + p1 + (p2 + p3);
+  into[j] = q0 + q1 + (q2 + q3);
 }
 
 /**
