@@ -6,7 +6,7 @@
  * recalculation on load, so every spreadsheet computes the figures itself.
  */
 import type ExcelJS from "exceljs";
-import JSZip from "jszip";
+import type JSZip from "jszip";
 import {
   chartPartXml,
   columnLetters,
@@ -124,7 +124,9 @@ export async function withCharts(
   bytes: ArrayBuffer | Uint8Array,
   charts: readonly PlacedChart[],
 ): Promise<Buffer> {
-  const zip = await JSZip.loadAsync(bytes);
+  // Loaded here, not at the top: every command's start would otherwise read jszip's 66 files.
+  const { default: Zip } = await import("jszip");
+  const zip = await Zip.loadAsync(bytes);
   // exceljs writes a print area as $A1:$N78; LibreOffice ignores that form, so make it $A$1:$N$78.
   const workbookXml = await readPart(zip, "xl/workbook.xml");
   zip.file(
