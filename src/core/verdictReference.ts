@@ -192,10 +192,20 @@ export function summarise(
   out.crossings = crossings;
 }
 
-/** Binomial chance of at least c crossings among `tested` lags, for c = 0..tested. */
+const knownChances = new Map<string, Float64Array>();
+
+/**
+ * Binomial chance of at least c crossings among `tested` lags, for c = 0..tested (+1). Every
+ * series of a batch asks for the same few: they are kept per (tested, alpha), read-only.
+ */
 export function crossingChances(tested: number, alpha: number): Float64Array {
+  const key = `${tested}|${alpha}`;
+  const known = knownChances.get(key);
+  if (known !== undefined) return known;
   const chances = new Float64Array(tested + 2);
   for (let c = 0; c <= tested + 1; c++) chances[c] = binomialUpperTail(c, tested, alpha);
+  if (knownChances.size > 256) knownChances.clear();
+  knownChances.set(key, chances);
   return chances;
 }
 
