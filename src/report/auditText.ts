@@ -9,8 +9,8 @@
  */
 import { formatNumber, type AuditBatch, type AuditBatchItem, type ForecastAudit } from "../core";
 import { ALL_RANKED, rankedAuditItems, selectRanked, type RankedSelection } from "./batchOrder";
-import { headlineCell, rankedBodyLines } from "./rankedFooter";
-import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
+import { headlineCell, leftOutLines, rankedBodyLines } from "./rankedFooter";
+import { groupHeader, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
 import { paddedP } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
@@ -99,16 +99,15 @@ export function auditText(batch: AuditBatch, context: AuditTextContext = {}): st
   appendLines(
     lines,
     rankedBodyLines({
-      alpha,
-      all,
-      shown,
-      selection,
+      ...{ alpha, all, shown, selection },
       table: rankedTableText(
         shown,
         (item) => item.label,
         cols,
-        (start) =>
-          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("bias", 17)} ${groupLabel("dependence", 15)}`,
+        groupHeader(nWidth, [
+          ["bias", 17],
+          ["dependence", 15],
+        ]),
       ),
       headerLines: 2,
       counts: [
@@ -128,12 +127,12 @@ export function auditText(batch: AuditBatch, context: AuditTextContext = {}): st
       showReasons: context.reasons === true,
       // Beyond one step every audited row has lags to show: the expected ones below the horizon.
       includeClear: horizon > 1,
-      notAnalysed: [
-        ...all
-          .filter((r) => r.item.audit === null)
-          .map((r) => `not audited: ${r.item.label}: ${r.item.problem}`),
-        ...(context.leftOut ?? []),
-      ],
+      notAnalysed: leftOutLines(
+        all,
+        "not audited",
+        (item) => (item.audit === null ? { label: item.label, reason: item.problem } : null),
+        context.leftOut,
+      ),
     }),
   );
   return lines.map((line) => line.trimEnd()).join("\n");

@@ -9,8 +9,8 @@
  */
 import { formatLevel, formatNumber, TEST_NAMES, type BatchCheck, type BatchRow } from "../core";
 import { ALL_RANKED, rankedBatchRows, selectRanked, type RankedSelection } from "./batchOrder";
-import { headlineCell, rankedBodyLines } from "./rankedFooter";
-import { groupLabel, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
+import { headlineCell, leftOutLines, rankedBodyLines } from "./rankedFooter";
+import { groupHeader, lastColumnWidth, rankedTableText, type TextColumn } from "./rankedTable";
 import { paddedP } from "./tableCells";
 import { appendLines, wrapText } from "./textWrap";
 
@@ -63,16 +63,15 @@ export function batchText(batch: BatchCheck, context: BatchTextContext = {}): st
   appendLines(
     lines,
     rankedBodyLines({
-      alpha,
-      all,
-      shown,
-      selection,
+      ...{ alpha, all, shown, selection },
       table: rankedTableText(
         shown,
         (row) => row.label,
         columns(batch),
-        (start) =>
-          `${" ".repeat(start + 1 + nWidth + 1)}${groupLabel("lag structure", 17)} ${groupLabel("bias", 8)}`,
+        groupHeader(nWidth, [
+          ["lag structure", 17],
+          ["bias", 8],
+        ]),
       ),
       headerLines: 2,
       counts: [
@@ -88,12 +87,12 @@ export function batchText(batch: BatchCheck, context: BatchTextContext = {}): st
       })),
       showReasons: context.reasons === true,
       includeClear: false,
-      notAnalysed: [
-        ...all
-          .filter((r) => r.item.verdict === null)
-          .map((r) => `not analysed: ${r.item.label}: ${r.item.reason}`),
-        ...(context.leftOut ?? []),
-      ],
+      notAnalysed: leftOutLines(
+        all,
+        "not analysed",
+        (row) => (row.verdict === null ? row : null),
+        context.leftOut,
+      ),
     }),
   );
   return lines.map((line) => line.trimEnd()).join("\n");

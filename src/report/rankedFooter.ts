@@ -50,6 +50,24 @@ export interface RankedBody {
   readonly notAnalysed: readonly string[];
 }
 
+/**
+ * The lines for the items a ranked text could not check: "`word`: label: reason" for each item
+ * whose `reasonIfLeftOut` is not null, in rank order, then the caller's own (columns left out).
+ */
+export function leftOutLines<T>(
+  all: readonly Ranked<T>[],
+  word: string,
+  reasonIfLeftOut: (item: T) => { label: string; reason: string } | null,
+  more: readonly string[] = [],
+): string[] {
+  const lines: string[] = [];
+  for (const { item } of all) {
+    const left = reasonIfLeftOut(item);
+    if (left !== null) lines.push(`${word}: ${left.label}: ${left.reason}`);
+  }
+  return [...lines, ...more];
+}
+
 export function rankedBodyLines(body: RankedBody): string[] {
   const lines: string[] = [];
   const cut = keptCutLine(body.shown);

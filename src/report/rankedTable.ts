@@ -90,6 +90,18 @@ export function groupLabel(text: string, width: number): string {
   return `${"─".repeat(left)} ${text} ${"─".repeat(right)}`;
 }
 
+/**
+ * The line over a ranked table's figures: labelled groups of columns, each label centred in its
+ * width, the first starting past the rank, the name and the n column (`nWidth` wide).
+ */
+export function groupHeader(
+  nWidth: number,
+  groups: readonly (readonly [label: string, width: number])[],
+): (figuresStart: number) => string {
+  const labels = groups.map(([label, width]) => groupLabel(label, width)).join(" ");
+  return (start) => `${" ".repeat(start + 1 + nWidth + 1)}${labels}`;
+}
+
 /** Width of a left-aligned last column of words: its longest cell, one space before it. */
 export function lastColumnWidth(cells: readonly string[], header: string): number {
   return cells.reduce((w, cell) => Math.max(w, Array.from(cell).length), header.length) + 1;
