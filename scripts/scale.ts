@@ -207,8 +207,13 @@ function table(results: Record<string, Measurement>): string {
     if (name === "batch") {
       const perSeries = (cpu / m.series) * 1000;
       const million = (perSeries * 1e6) / 1000;
+      // A projection only where the run was smaller than the full size; otherwise it is measured.
+      const atFullSize =
+        m.series >= 1_000_000
+          ? "measured at the full size"
+          : `at that rate 1,000,000 series take about ${duration(million)} of CPU (a projection, not a measurement)`;
       notes.push(
-        `batch: ${perSeries.toFixed(2)} ms of CPU a series, reading included; at that rate 1,000,000 series take about ${duration(million)} of CPU (a projection, not a measurement)`,
+        `batch: ${perSeries.toFixed(2)} ms of CPU a series, reading included; ${atFullSize}; the wall time is that of a shared machine (run at nice 10)`,
       );
     }
   }
