@@ -1,8 +1,10 @@
 /**
  * The settings form as the core's lag options. A blank field means the default; a number is read
- * strictly ("12abc" is refused, not read as 12). Ranges and their messages are the core's.
+ * strictly, in decimal notation as the CLI reads its options ("12abc" and "0x10" are refused, not
+ * read as 12 and 16). Ranges and their messages are the core's.
  */
 import {
+  isNumberText,
   parseBandKind,
   parseTestKind,
   refuseParameter,
@@ -35,11 +37,14 @@ export const SETTING_NAMES = [
 ] as const satisfies readonly ParameterName[];
 export type SettingName = (typeof SETTING_NAMES)[number];
 
-/** The one number reader of the form: blank is the default (null); anything else a finite number. */
-function numberSetting(name: SettingName, text: string): number | null {
+/**
+ * The one number reader of the form: blank is the default (null); anything else a finite number
+ * in decimal notation (`Number` alone would take "0x10" as 16 and "0b11" as 3).
+ */
+export function numberSetting(name: SettingName, text: string): number | null {
   const trimmed = text.trim();
   if (trimmed === "") return null;
-  const value = Number(trimmed);
+  const value = isNumberText(trimmed) ? Number(trimmed) : NaN;
   if (!Number.isFinite(value)) {
     refuseParameter({ name, allows: "number" }, `${name} must be a number (got "${text}")`);
   }
